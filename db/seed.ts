@@ -1,0 +1,74 @@
+// Demo data of an invented scenario: the Harbor Lane Circuits Lab (fictional), its three
+// people and two rigs, and a second lab for the lab switcher. Idempotent: a second run
+// changes nothing.
+import { drizzle } from 'drizzle-orm/postgres-js';
+import { and, eq } from 'drizzle-orm';
+import postgres from 'postgres';
+import { fileURLToPath } from 'node:url';
+import * as schema from './schema';
+import { hashPassword } from '../lib/auth/password';
+import { DEMO } from './demo';
+
+export async function seed(url: string): Promise<void> {
+  const sql = postgres(url, { max: 1, onnotice: () => {} });
+  const db = drizzle(sql, { schema, casing: 'snake_case' });
+  try {
+    await db.transaction(async (tx) => {
+      const labIds: Record<string, string> = {};
+      for (const lab of DEMO.labs) {
+        const [row] = await tx
+          .insert(schema.labs)
+          .values(lab)
+          .onConflictDoUpdate({ target: schema.labs.slug, set: { name: lab.name } })
+          .returning({ id: schema.labs.id });
+        labIds[lab.slug] = row!.id;
+      }
+
+      const passwordHash = await hashPassword(DEMO.password);
+      for (const person of DEMO.people) {
+        let [user] = await tx.select().from(schema.users).where(eq(schema.users.email, person.email)).limit(1);
+        if (!user) {
+          [user] = await tx
+            .insert(schema.users)
+            .values({ email: person.email, name: person.name, passwordHash, emailVerified: new Date() })
+            .returning();
+        }
+        for (const [slug, roles] of Object.entries(person.roles)) {
+          await tx
+            .insert(schema.memberships)
+            .values({ labId: labIds[slug]!, userId: user!.id, roles })
+            .onConflictDoNothing();
+        }
+      }
+
+      for (const rig of DEMO.rigs) {
+        const labId = labIds[rig.lab]!;
+        const [existing] = await tx
+          .select({ id: schema.rigs.id })
+          .from(schema.rigs)
+          .where(and(eq(schema.rigs.labId, labId), eq(schema.rigs.name, rig.name)))
+          .limit(1);
+        if (!existing) {
+          const { lab: _lab, ...values } = rig;
+          await tx.insert(schema.rigs).values({ ...values, labId });
+        }
+      }
+    });
+  } finally {
+    await sql.end();
+  }
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  const url = process.env.DATABASE_URL;
+  if (!url) {
+    console.error('DATABASE_URL is not set');
+    process.exit(1);
+  }
+  seed(url)
+    .then(() => console.log('demo data ready'))
+    .catch((err: Error) => {
+      console.error(`seeding failed: ${err.message}`);
+      process.exit(1);
+    });
+}

@@ -1,0 +1,11 @@
+import type { NextConfig } from 'next';
+
+const nextConfig: NextConfig = {
+  // forbidden()/unauthorized() give real 403/401 pages for role checks.
+  experimental: { authInterrupts: true },
+  // postgres.js and nodemailer are server-only Node libraries; keep them out of bundling.
+  serverExternalPackages: ['postgres', 'nodemailer', 'smtp-server', 'mailparser'],
+  poweredByHeader: false,
+};
+
+export default nextConfig;
