@@ -57,7 +57,7 @@ export function electricalRows(
         help:
           q === null
             ? noPhase
-            : `${fmt(spec.pulse.amplitude)} µA × ${fmt(phaseUs as number)} µs; 100 µA × 200 µs is 20 nC (c). ` +
+            : `${fmt(spec.pulse.amplitude)} µA × ${fmt(phaseUs as number)} µs = ${fmt(q.nC)} nC (µA × µs = pC). ` +
               'Both phases carry the same current for the same time, so each pulse is charge-balanced by construction.',
       },
       whenUnknown,
@@ -116,7 +116,7 @@ function shannonRow(
   whenUnknown: 'warn' | 'fail',
   missing: string,
 ): SheetRow {
-  const base = { id: 'shannon-k', label: 'Shannon k', unit: 'k', source: `${SOURCES.shannon1992}; ${LAB}` };
+  const base = { id: 'shannon-k', label: 'Shannon k', unit: '', source: `${SOURCES.shannon1992}; ${LAB}` };
   // No charge at all has k = −∞: nothing to check, and not a missing value either.
   if (qUc === 0) return infoRow({ ...base, value: null, help: 'No charge is delivered (amplitude 0).' });
   const k = qUc !== null && density !== null ? shannonK(qUc, density) : null;
@@ -135,7 +135,7 @@ function shannonRow(
         k === null
           ? missing
           : 'k = log10(Q) + log10(D), Q in µC per phase, D in µC/cm² per phase. Damage appeared from k 1.85 in the pooled data ' +
-            '(cat cortex, 50 pulses/s, 400 µs phases, 7 h); rate, width, duty cycle and exposure are not in the model.' +
+            '(cat cortex, 50 pulses/s, 400 µs phases, 7 h; Shannon 1992, (a)); rate, width, duty cycle and exposure are not in the model.' +
             headroom +
             (micro ? ' This is a microelectrode: the criterion does not hold here (Cogan et al. 2016, (a)).' : ''),
     },

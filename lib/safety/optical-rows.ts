@@ -87,7 +87,7 @@ export function opticalRows(
         limit: limits.maxMeanPowerMw,
         direction: 'max',
         source: `${SOURCES.practice}: heating follows average power, P_mean = P_peak × duty cycle; ${LAB}`,
-        help: meanMw === null ? 'Cannot be computed: no duty cycle.' : `Peak power × duty cycle; sustained 3–30 mW warmed brain tissue by 0.2–2 °C (${SOURCES.owen2019}).`,
+        help: meanMw === null ? 'Cannot be computed: no duty cycle.' : 'Peak power × duty cycle. Sustained 3–30 mW warmed brain tissue by 0.2–2 °C (Owen et al. 2019, (a)).',
       },
       whenUnknown,
     ),
@@ -118,7 +118,7 @@ export function opticalRows(
             ? 'Cannot be computed: no mean power.'
             : `Mean power × ${HEATING_C_PER_MW.nearTip} °C/mW, the measured rise close to the tip (0.116 °C/mW at 563 µm). ` +
               (wavelength !== null && wavelength !== 473 ? `Measured at 473 nm; at ${fmt(wavelength)} nm treat it as rough. ` : '') +
-              `Rises of 0.2–2 °C change spiking and behaviour (${SOURCES.owen2019}); damage appears at 6–8 K and models can understate heating (${SOURCES.ariasGil2016}).`,
+              'Rises of 0.2–2 °C change spiking and behaviour (Owen et al. 2019, (a)); irreversible damage appears at 6–8 K and models can understate heating up to tenfold (Arias-Gil et al. 2016, (a)).',
       },
       whenUnknown,
     ),

@@ -33,6 +33,7 @@ export const SOURCES = {
     'Knoll, Radiation Detection and Measurement, 4th ed. (2010), ch. 4: non-paralyzable dead time (b)',
   geometry: 'Area of a circle, arithmetic (c)',
   arithmetic: 'Arithmetic on the spec (c)',
+  measured: 'Measured on the generated schedule (c)',
   practice: 'common practice, no source (c)',
   labLimit: 'limit chosen by the lab in its profile',
 } as const;

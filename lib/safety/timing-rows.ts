@@ -34,7 +34,7 @@ export function timingRows(
           'The highest rate the envelope asks for; the spec is never clipped, so this is what the generator draws from. ' +
           (delivered !== null
             ? `The refractory period delivers fewer: a steady drawn rate λ with dead time τ gives λ/(1 + λτ), here about ${fmt(delivered)} Hz ` +
-              `(non-paralyzable dead time: ${SOURCES.knoll2010}; exact for a constant rate only, (c)).`
+              '(non-paralyzable dead time, Knoll 2010, (b); exact for a constant rate only).'
             : ''),
       },
       whenUnknown,
@@ -49,7 +49,7 @@ export function timingRows(
         label: 'Highest instantaneous rate',
         value: instant,
         unit: 'Hz',
-        source: SOURCES.arithmetic,
+        source: SOURCES.measured,
         help: 'Measured on the generated schedule. Random timing produces short gaps by design; the refractory row bounds them.',
       }),
     );
@@ -61,7 +61,7 @@ export function timingRows(
       label: 'Mean pulse rate',
       value: d.meanRate?.hz ?? null,
       unit: 'Hz',
-      source: SOURCES.arithmetic,
+      source: d.meanRate?.from === 'schedule' ? SOURCES.measured : SOURCES.arithmetic,
       help: d.meanRate
         ? d.meanRate.from === 'schedule'
           ? `Delivered pulses per second, ${FROM.schedule}.`
