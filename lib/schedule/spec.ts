@@ -23,6 +23,8 @@ export const LIMITS = {
   /** Rig timer timebases reach 20–100 MHz (common practice, no source). */
   maxClockHz: 100_000_000,
   maxSeedLength: 256,
+  /** A window cap above this is no cap anyone needs; it bounds the engine's ring buffer. */
+  maxWindowPulses: 1_000_000,
 } as const;
 
 /** Tolerance when comparing a stated pulse width with its phases (floating input like 0.45 ms). */
@@ -80,8 +82,11 @@ export const capsSchema = z.strictObject({
   maxRateHz: positive('maxRateHz').optional(),
   window: z
     .strictObject({
-      seconds: positive('seconds'),
-      maxPulses: finite('maxPulses').refine(Number.isInteger, { error: 'maxPulses must be a whole number' }).min(1, { error: 'maxPulses must be ≥ 1' }),
+      seconds: positive('seconds').max(LIMITS.maxDurationS, { error: `seconds must be ≤ ${LIMITS.maxDurationS}` }),
+      maxPulses: finite('maxPulses')
+        .refine(Number.isInteger, { error: 'maxPulses must be a whole number' })
+        .min(1, { error: 'maxPulses must be ≥ 1' })
+        .max(LIMITS.maxWindowPulses, { error: `maxPulses must be ≤ ${LIMITS.maxWindowPulses}` }),
     })
     .optional(),
 });

@@ -1,0 +1,113 @@
+/**
+ * CSV export, format `pulseloom-schedule/1` (documented in docs/export-formats.md).
+ *
+ *   # PREVIEW — NOT APPROVED FOR USE          ← first line, only for draft exports
+ *   # format: pulseloom-schedule/1
+ *   # engine: pulseloom-thinning/1
+ *   # seed: <master seed>
+ *   # clockHz: <Hz>
+ *   # trials: <n>
+ *   # pulses: <total>
+ *   # checksum: sha256:<hex>
+ *   # <meta key>: <value>                      ← protocol, version, approvedBy, approvedAt, status, channel, …
+ *   # manifest: {…one line of JSON…}          ← enough for `pulseloom verify` to regenerate from this file alone
+ *   trial,pulse_index,onset_s,onset_sample,width_ms,amplitude,unit,phase_width_us,phase_gap_us,leading_phase,channel
+ *   0,0,0.0159,159,5,10,mW,,,,A1
+ *
+ * Rows: one per pulse, trials ascending, onsets ascending. onset_sample (integer tick of
+ * the clockHz clock, from 0 at trial start) is the canonical time; onset_s is
+ * onset_sample / clockHz written as the shortest decimal that reads back to the same
+ * double. Phase columns are empty for optical pulses. Comment values are written as is
+ * unless they hold control characters, edge spaces or start with a quote; then they are
+ * JSON strings.
+ *
+ * Streaming: one pass computes the checksum (it heads the file), a second writes rows;
+ * at most one 60 s block of pulses is held at a time.
+ */
+import { compileSpec } from '../compile';
+import { ENGINE_ID } from '../engine';
+import { buildManifest, scanSchedule } from '../manifest';
+import type { Spec } from '../spec';
+import { trialBlocks } from '../stream';
+import { assertValid } from '../validate';
+import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type MetaValue, type ScheduleMeta } from './meta';
+
+export const CSV_COLUMNS = [
+  'trial',
+  'pulse_index',
+  'onset_s',
+  'onset_sample',
+  'width_ms',
+  'amplitude',
+  'unit',
+  'phase_width_us',
+  'phase_gap_us',
+  'leading_phase',
+  'channel',
+] as const;
+
+export const CSV_HEADER = CSV_COLUMNS.join(',');
+
+/** RFC 4180 quoting when a cell needs it. */
+export function csvCell(v: string): string {
+  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+}
+
+export function commentValue(v: MetaValue): string {
+  const s = String(v);
+  const plain = !/[\u0000-\u001f\u007f]/.test(s) && s === s.trim() && !s.startsWith('"');
+  return typeof v === 'string' && !plain ? JSON.stringify(s) : s;
+}
+
+/** The constant tail of every row: `,width_ms,amplitude,unit,phase_width_us,phase_gap_us,leading_phase,channel`. */
+export function rowSuffix(spec: Spec, channel: string | undefined): string {
+  const p = spec.pulse;
+  const ph = p.unit === 'uA' ? p.phases : undefined;
+  return [
+    '',
+    String(p.widthMs),
+    String(p.amplitude),
+    p.unit,
+    ph ? String(ph.widthUs) : '',
+    ph ? String(ph.gapUs) : '',
+    ph ? ph.leading : '',
+    csvCell(channel ?? ''),
+  ].join(',');
+}
+
+export function* csvLines(spec: Spec, meta?: ScheduleMeta): Generator<string, void, undefined> {
+  assertValid(spec);
+  const entries = metaEntries(meta);
+  const scan = scanSchedule(spec);
+  const manifest = buildManifest(spec, scan);
+  const head: string[] = [];
+  if (meta?.preview) head.push(`# ${PREVIEW_NOTICE}`);
+  head.push(
+    `# format: ${SCHEDULE_FORMAT}`,
+    `# engine: ${ENGINE_ID}`,
+    `# seed: ${commentValue(spec.seed)}`,
+    `# clockHz: ${spec.clockHz}`,
+    `# trials: ${spec.trials}`,
+    `# pulses: ${scan.pulseCount}`,
+    `# checksum: ${scan.checksum}`,
+  );
+  for (const [k, v] of entries) head.push(`# ${k}: ${commentValue(v)}`);
+  head.push(`# manifest: ${JSON.stringify(manifest)}`, CSV_HEADER);
+  yield head.join('\n') + '\n';
+
+  const c = compileSpec(spec);
+  const clk = c.clockHz;
+  const channel = typeof meta?.channel === 'string' ? meta.channel : meta?.channel === undefined ? undefined : String(meta.channel);
+  const suffix = rowSuffix(spec, channel) + '\n';
+  for (let trial = 0; trial < spec.trials; trial++) {
+    const prefix = `${trial},`;
+    for (const { samples, length, firstIndex } of trialBlocks(c, trial)) {
+      let chunk = '';
+      for (let i = 0; i < length; i++) {
+        const s = samples[i];
+        chunk += prefix + (firstIndex + i) + ',' + s / clk + ',' + s + suffix;
+      }
+      yield chunk;
+    }
+  }
+}

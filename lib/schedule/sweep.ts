@@ -1,0 +1,352 @@
+/**
+ * The thinning sweep over one 60 s block of one trial (engine `pulseloom-thinning/1`).
+ *
+ * Candidates: a homogeneous Poisson cloud of rate ceilingHz on the block. The block is
+ * cut into K equal cells (K = max(1, ⌈60·ceilingHz/4⌉)); each cell draws its count from
+ * Poisson(ceilingHz·60/K) by inversion, then that many uniform positions, sorted; then
+ * each candidate, in time order, draws its height y = u·ceilingHz. Independent Poisson
+ * counts with uniform positions in disjoint cells are a homogeneous Poisson process, and
+ * this form needs no logarithm per candidate. The cloud depends on (seed, trial, block,
+ * ceilingHz) only — never on the envelope or the duration — which is what couples two
+ * versions of an envelope (Lewis & Shedler 1979; Ogata 1981).
+ *
+ * A candidate becomes a pulse when every rule below passes, tried in this order; the
+ * first rule that fails names the counter it lands in:
+ *   1. thinning      y < ρ(t)                          (not counted as suppressed: it is the method)
+ *   2. refractory    Δ = t − lastOnset ≥ absolute, and y < ρ(t)·(1 − e^(−(Δ−abs)/recovery)) when recovery > 0
+ *   3. clock         s = ⌊t·clockHz⌋; s − lastSample ≥ refractoryTicks (≥ 1)
+ *   4. maxRate       s − lastSample ≥ ⌈clockHz / maxRateHz⌉
+ *   5. window        s − (sample of the pulse maxPulses back) ≥ ⌈seconds·clockHz⌉
+ * Δ and the tick rules are measured from the last KEPT onset (non-paralyzable dead
+ * time); measuring from the last candidate would give the paralyzable rate λe^(−λτ).
+ * lastOnset is the delivered time lastSample / clockHz, so the whole state entering a
+ * block can be read back from a schedule file.
+ *
+ * Onsets go to the tick in which the candidate falls (floor). That keeps every pulse
+ * of block b inside the block's own tick range, so a file splits cleanly into blocks.
+ */
+import type { Compiled } from './compile';
+import { BLOCK_SECONDS, type AleaState } from './seeds';
+
+export interface SweepCounts {
+  candidates: number;
+  thinned: number;
+  refractory: number;
+  clock: number;
+  maxRate: number;
+  window: number;
+  kept: number;
+}
+
+export const zeroCounts = (): SweepCounts => ({
+  candidates: 0,
+  thinned: 0,
+  refractory: 0,
+  clock: 0,
+  maxRate: 0,
+  window: 0,
+  kept: 0,
+});
+
+export function addCounts(into: SweepCounts, from: SweepCounts): void {
+  into.candidates += from.candidates;
+  into.thinned += from.thinned;
+  into.refractory += from.refractory;
+  into.clock += from.clock;
+  into.maxRate += from.maxRate;
+  into.window += from.window;
+  into.kept += from.kept;
+}
+
+/** Everything the sweep remembers from earlier pulses of the same trial. */
+export interface SweepState {
+  /** Sample of the last kept onset, −Infinity before the first. */
+  lastSample: number;
+  /** Last min(kept, windowMax) kept samples, oldest first at `head` (ring buffer). */
+  ring: Float64Array;
+  ringCount: number;
+  ringHead: number;
+}
+
+export function freshState(c: Compiled): SweepState {
+  return { lastSample: -Infinity, ring: new Float64Array(c.windowMax), ringCount: 0, ringHead: 0 };
+}
+
+/** State as it would be after the given kept samples (ascending), e.g. read from a file. */
+export function stateFromSamples(c: Compiled, samples: ArrayLike<number>): SweepState {
+  const st = freshState(c);
+  const n = samples.length;
+  if (n > 0) st.lastSample = samples[n - 1];
+  const k = Math.min(n, c.windowMax);
+  for (let i = 0; i < k; i++) st.ring[i] = samples[n - k + i];
+  st.ringCount = k;
+  st.ringHead = 0;
+  return st;
+}
+
+/** Growable buffer of kept samples, reused block after block. */
+export class SampleBuffer {
+  data: Float64Array = new Float64Array(4096);
+  length = 0;
+  push(s: number): void {
+    this.reserve(1);
+    this.data[this.length++] = s;
+  }
+  /** Make room for `extra` more values; returns the (possibly new) backing array. */
+  reserve(extra: number): Float64Array {
+    if (this.length + extra > this.data.length) {
+      const next = new Float64Array(Math.max(this.data.length * 2, this.length + extra));
+      next.set(this.data.subarray(0, this.length));
+      this.data = next;
+    }
+    return this.data;
+  }
+  clear(): void {
+    this.length = 0;
+  }
+}
+
+export function blockSampleRange(c: Compiled, block: number): { from: number; to: number } {
+  return {
+    from: block * BLOCK_SECONDS * c.clockHz,
+    to: Math.min((block + 1) * BLOCK_SECONDS * c.clockHz, c.endSample),
+  };
+}
+
+/**
+ * Sweep one block: appends kept samples to `out`, updates `state` and `counts`.
+ * Hot loop: no allocation, Alea stepped on locals, the segment index only moves forward,
+ * and per cell a [lo, hi] bound of ρ (padded for rounding) settles most candidates
+ * without evaluating ρ — the decision is still exactly "y < ρ(t)" as computed below.
+ */
+export function sweepBlock(
+  c: Compiled,
+  rng: AleaState,
+  block: number,
+  state: SweepState,
+  out: SampleBuffer,
+  counts: SweepCounts,
+): void {
+  const t0 = block * BLOCK_SECONDS;
+  const t1 = Math.min(t0 + BLOCK_SECONDS, c.durationS);
+  if (!(t1 > t0)) return;
+  const endExcl = blockSampleRange(c, block).to;
+  const { starts, kind, c0, c1, c2, c3, pad, ceilingHz, clockHz, absoluteS, recoveryS } = c;
+  const { refractoryTicks, maxRateTicks, windowTicks, windowMax, cellsPerBlock, cellS, cellCdf } = c;
+  const lastSeg = c.nSegments - 1;
+  const pos = scratchFor(cellCdf.length);
+  const ring = state.ring;
+  let ringCount = state.ringCount;
+  let ringHead = state.ringHead;
+  let lastSample = state.lastSample;
+  let lastOnset = lastSample / clockHz;
+  let outData = out.data;
+  let outLen = out.length;
+
+  let a0 = rng.s0;
+  let a1 = rng.s1;
+  let a2 = rng.s2;
+  let ac = rng.c;
+
+  let seg = segmentAt(starts, c.nSegments, t0);
+  let segStart = starts[seg];
+  let segEnd = starts[seg + 1];
+
+  let candidates = 0;
+  let thinned = 0;
+  let refractory = 0;
+  let clock = 0;
+  let maxRate = 0;
+  let window = 0;
+  let kept = 0;
+
+  cells: for (let j = 0; j < cellsPerBlock; j++) {
+    const cs = t0 + j * cellS;
+    if (cs >= t1) break;
+    const ce = t0 + (j + 1) * cellS;
+
+    // Count: Poisson inversion with the first uniform of the cell.
+    let x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+    a0 = a1;
+    a1 = a2;
+    ac = x | 0;
+    a2 = x - ac;
+    let n = 0;
+    while (a2 >= cellCdf[n]) n++;
+    if (n === 0) continue;
+    if (outLen + n > outData.length) {
+      out.length = outLen;
+      outData = out.reserve(n);
+    }
+
+    // Positions: n uniforms, sorted (insertion sort; n is small).
+    for (let i = 0; i < n; i++) {
+      x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+      a0 = a1;
+      a1 = a2;
+      ac = x | 0;
+      a2 = x - ac;
+      const v = cs + a2 * cellS;
+      let k = i;
+      while (k > 0 && pos[k - 1] > v) {
+        pos[k] = pos[k - 1];
+        k--;
+      }
+      pos[k] = v;
+    }
+
+    // Bounds of ρ over the cell, when the cell lies inside one segment.
+    while (seg < lastSeg && cs >= segEnd) {
+      seg++;
+      segStart = starts[seg];
+      segEnd = starts[seg + 1];
+    }
+    let lo = -Infinity;
+    let hi = Infinity;
+    if (ce <= segEnd || seg === lastSeg) {
+      const la = cs - segStart;
+      const lb = Math.min(ce, segEnd) - segStart;
+      if (kind[seg] === 0) {
+        const ra = c0[seg] + c1[seg] * (la / c2[seg]);
+        const rb = c0[seg] + c1[seg] * (lb / c2[seg]);
+        lo = (ra < rb ? ra : rb) - pad[seg];
+        hi = (ra < rb ? rb : ra) + pad[seg];
+      } else {
+        const tha = c2[seg] * la + c3[seg];
+        const thb = c2[seg] * lb + c3[seg];
+        const sa = boundSin(tha);
+        const sb = boundSin(thb);
+        let smin = sa < sb ? sa : sb;
+        let smax = sa < sb ? sb : sa;
+        if (thb - tha >= TWO_PI) {
+          smin = -1;
+          smax = 1;
+        } else {
+          if (PEAK + TWO_PI * Math.ceil((tha - PEAK) / TWO_PI) <= thb) smax = 1;
+          if (TROUGH + TWO_PI * Math.ceil((tha - TROUGH) / TWO_PI) <= thb) smin = -1;
+        }
+        lo = c0[seg] + c1[seg] * smin - pad[seg];
+        hi = c0[seg] + c1[seg] * smax + pad[seg];
+      }
+    }
+
+    for (let i = 0; i < n; i++) {
+      const t = pos[i];
+      if (t >= t1) break cells;
+      x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+      a0 = a1;
+      a1 = a2;
+      ac = x | 0;
+      a2 = x - ac;
+      const y = a2 * ceilingHz;
+      candidates++;
+      if (y >= hi) {
+        thinned++;
+        continue;
+      }
+      let rho = 0;
+      if (y >= lo || recoveryS > 0) {
+        while (seg < lastSeg && t >= segEnd) {
+          seg++;
+          segStart = starts[seg];
+          segEnd = starts[seg + 1];
+        }
+        const local = t - segStart;
+        rho = kind[seg] === 0 ? c0[seg] + c1[seg] * (local / c2[seg]) : c0[seg] + c1[seg] * Math.sin(c2[seg] * local + c3[seg]);
+        if (y >= rho) {
+          thinned++;
+          continue;
+        }
+      }
+      const since = t - lastOnset;
+      if (since < absoluteS || (recoveryS > 0 && y >= rho * (1 - Math.exp(-(since - absoluteS) / recoveryS)))) {
+        refractory++;
+        continue;
+      }
+      let smp = Math.floor(t * clockHz);
+      if (smp >= endExcl) smp = endExcl - 1;
+      const gap = smp - lastSample;
+      if (gap < refractoryTicks) {
+        clock++;
+        continue;
+      }
+      if (gap < maxRateTicks) {
+        maxRate++;
+        continue;
+      }
+      if (windowMax > 0) {
+        if (ringCount === windowMax) {
+          if (smp - ring[ringHead] < windowTicks) {
+            window++;
+            continue;
+          }
+          ring[ringHead] = smp;
+          ringHead = ringHead + 1 === windowMax ? 0 : ringHead + 1;
+        } else {
+          ring[(ringHead + ringCount) % windowMax] = smp;
+          ringCount++;
+        }
+      }
+      outData[outLen++] = smp;
+      kept++;
+      lastSample = smp;
+      lastOnset = smp / clockHz;
+    }
+  }
+
+  out.length = outLen;
+  rng.s0 = a0;
+  rng.s1 = a1;
+  rng.s2 = a2;
+  rng.c = ac;
+  state.lastSample = lastSample;
+  state.ringCount = ringCount;
+  state.ringHead = ringHead;
+  counts.candidates += candidates;
+  counts.thinned += thinned;
+  counts.refractory += refractory;
+  counts.clock += clock;
+  counts.maxRate += maxRate;
+  counts.window += window;
+  counts.kept += kept;
+}
+
+const TWO_PI = 2 * Math.PI;
+const PEAK = Math.PI / 2;
+const TROUGH = (3 * Math.PI) / 2;
+
+/**
+ * Fast sine for the cell bounds only (never for a decision): reduction by 2π, folding,
+ * Taylor series to r^13. Error ≤ 1e-9 plus 1e-15·|θ| from the reduction; compile.ts
+ * pads every sine segment's bounds by more than that.
+ */
+function boundSin(th: number): number {
+  let r = th - TWO_PI * Math.round(th / TWO_PI);
+  if (r > PEAK) r = Math.PI - r;
+  else if (r < -PEAK) r = -Math.PI - r;
+  const r2 = r * r;
+  return (
+    r *
+    (1 +
+      r2 *
+        (-1 / 6 +
+          r2 * (1 / 120 + r2 * (-1 / 5040 + r2 * (1 / 362880 + r2 * (-1 / 39916800 + r2 / 6227020800))))))
+  );
+}
+
+let scratch = new Float64Array(64);
+function scratchFor(n: number): Float64Array {
+  if (scratch.length < n) scratch = new Float64Array(n);
+  return scratch;
+}
+
+function segmentAt(starts: Float64Array, n: number, t: number): number {
+  let lo = 0;
+  let hi = n - 1;
+  while (lo < hi) {
+    const mid = (lo + hi + 1) >> 1;
+    if (starts[mid] <= t) lo = mid;
+    else hi = mid - 1;
+  }
+  return lo;
+}
