@@ -9,3 +9,8 @@ export * from './table';
 export * from './validate';
 export * from './viewport';
 export * from './ticks';
+export * from './hit';
+export * from './keyboard';
+export * from './navigate';
+export * from './shape-form';
+export * from './settings';

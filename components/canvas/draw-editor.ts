@@ -1,0 +1,318 @@
+import type { Context } from 'konva/lib/Context';
+import { segmentRate } from '@/lib/schedule/envelope';
+import { formatTick, niceTicks } from './model/ticks';
+import { hzToY, timeToX, xToTime, type PlotRect, type Viewport } from './model/viewport';
+import { listKnots } from './model/knots';
+import { visibleBoundaries } from './model/hit';
+import type { EditorDoc } from './model/doc';
+import type { DocIssue } from './model/validate';
+import { canvasFont, palette } from '@/components/plots/palette';
+
+/**
+ * Drawing for the editor's three layers. The canvas calls these from Konva scene
+ * functions with whatever is current (the committed doc, or the doc of a drag in
+ * progress), so a drag frame redraws only the envelope layer, not React.
+ */
+
+export interface Limits {
+  ceilingHz: number;
+  maxRateHz?: number;
+}
+
+/** Grid, axes with adaptive ticks, and the two limit lines. Redrawn only when the view or size changes. */
+export function drawBackground(ctx: Context, vp: Viewport, r: PlotRect, limits: Limits, width: number, height: number) {
+  const xt = niceTicks(vp.t0, vp.t1, Math.max(3, Math.floor(r.width / 90)));
+  const yt = niceTicks(vp.hz0, vp.hz1, Math.max(3, Math.floor(r.height / 45)));
+  ctx.save();
+  ctx.setAttr('fillStyle', palette.panel);
+  ctx.fillRect(0, 0, width, height);
+  ctx.setAttr('strokeStyle', palette.grid);
+  ctx.setAttr('lineWidth', 1);
+  ctx.beginPath();
+  for (const t of xt.ticks) {
+    const x = Math.round(timeToX(vp, r, t)) + 0.5;
+    if (x < r.x || x > r.x + r.width) continue;
+    ctx.moveTo(x, r.y);
+    ctx.lineTo(x, r.y + r.height);
+  }
+  for (const hz of yt.ticks) {
+    const y = Math.round(hzToY(vp, r, hz)) + 0.5;
+    ctx.moveTo(r.x, y);
+    ctx.lineTo(r.x + r.width, y);
+  }
+  ctx.stroke();
+
+  // The envelope's own domain starts at 0 s: shade what lies before it.
+  const x0 = timeToX(vp, r, 0);
+  if (x0 > r.x) {
+    ctx.setAttr('fillStyle', palette.paper);
+    ctx.fillRect(r.x, r.y, Math.min(x0, r.x + r.width) - r.x, r.height);
+  }
+
+  ctx.setAttr('strokeStyle', palette.inkMuted);
+  ctx.beginPath();
+  ctx.moveTo(r.x + 0.5, r.y);
+  ctx.lineTo(r.x + 0.5, r.y + r.height + 0.5);
+  ctx.lineTo(r.x + r.width, r.y + r.height + 0.5);
+  ctx.stroke();
+
+  ctx.setAttr('fillStyle', palette.inkMuted);
+  ctx.setAttr('font', canvasFont('mono', 10));
+  ctx.setAttr('textAlign', 'center');
+  ctx.setAttr('textBaseline', 'top');
+  for (const t of xt.ticks) {
+    const x = timeToX(vp, r, t);
+    if (x >= r.x - 1 && x <= r.x + r.width + 1) ctx.fillText(formatTick(t, xt.step), x, r.y + r.height + 4);
+  }
+  ctx.setAttr('textAlign', 'right');
+  ctx.setAttr('textBaseline', 'middle');
+  for (const hz of yt.ticks) ctx.fillText(formatTick(hz, yt.step), r.x - 5, hzToY(vp, r, hz));
+
+  ctx.setAttr('fillStyle', palette.ink);
+  ctx.setAttr('font', canvasFont('sans', 11, 500));
+  ctx.setAttr('textAlign', 'center');
+  ctx.setAttr('textBaseline', 'bottom');
+  ctx.fillText('time (s)', r.x + r.width / 2, height - 2);
+  ctx.save();
+  ctx.translate(12, r.y + r.height / 2);
+  ctx.rotate(-Math.PI / 2);
+  ctx.setAttr('textBaseline', 'top');
+  ctx.fillText('rate (Hz)', 0, -2);
+  ctx.restore();
+
+  limitLine(ctx, vp, r, limits.ceilingHz, palette.danger, `ceiling ${limits.ceilingHz} Hz`, [7, 4]);
+  if (limits.maxRateHz !== undefined) limitLine(ctx, vp, r, limits.maxRateHz, palette.warn, `rate cap ${limits.maxRateHz} Hz`, [2, 3]);
+  ctx.restore();
+}
+
+function limitLine(ctx: Context, vp: Viewport, r: PlotRect, hz: number, color: string, label: string, dash: number[]) {
+  if (!Number.isFinite(hz)) return;
+  const y = Math.round(hzToY(vp, r, hz)) + 0.5;
+  if (y < r.y || y > r.y + r.height) return;
+  ctx.setAttr('strokeStyle', color);
+  ctx.setAttr('lineWidth', 1.5);
+  ctx.setLineDash(dash);
+  ctx.beginPath();
+  ctx.moveTo(r.x, y);
+  ctx.lineTo(r.x + r.width, y);
+  ctx.stroke();
+  ctx.setLineDash([]);
+  ctx.setAttr('fillStyle', color);
+  ctx.setAttr('font', canvasFont('sans', 10, 600));
+  ctx.setAttr('textAlign', 'right');
+  ctx.setAttr('textBaseline', 'bottom');
+  ctx.fillText(label, r.x + r.width - 4, y - 2);
+}
+
+export interface EnvelopeDrawState {
+  doc: EditorDoc;
+  starts: Float64Array;
+  issuesByKnot: Map<string, DocIssue[]>;
+  segmentIssues: DocIssue[];
+  limits: Limits;
+}
+
+/** Above this many knots on screen they merge into a line; only selected and faulty ones are drawn. */
+const DENSE_KNOTS_PER_PX = 1 / 4;
+
+/** Envelope line and fill, segment problems, and knots: only what lies in the visible time range. */
+export function drawEnvelope(ctx: Context, vp: Viewport, r: PlotRect, s: EnvelopeDrawState) {
+  const { doc, starts } = s;
+  const segs = doc.segments;
+  ctx.save();
+  ctx.beginPath();
+  ctx.rect(r.x, r.y - 6, r.width, r.height + 6);
+  ctx.clip();
+  if (segs.length === 0) {
+    ctx.setAttr('fillStyle', palette.inkMuted);
+    ctx.setAttr('font', canvasFont('sans', 12));
+    ctx.setAttr('textAlign', 'center');
+    ctx.fillText('Empty envelope: click to add the first point.', r.x + r.width / 2, r.y + r.height / 2);
+    ctx.restore();
+    return;
+  }
+  const { from, to } = visibleBoundaries(starts, vp);
+  const segFrom = Math.max(0, from);
+  const segTo = Math.min(segs.length - 1, to);
+
+  for (const issue of s.segmentIssues) {
+    if (issue.at.kind !== 'segment') continue;
+    const xa = Math.max(r.x, timeToX(vp, r, issue.at.t0));
+    const xb = Math.min(r.x + r.width, timeToX(vp, r, issue.at.t1));
+    if (xb <= xa) continue;
+    ctx.setAttr('fillStyle', palette.danger);
+    ctx.setAttr('globalAlpha', 0.1);
+    ctx.fillRect(xa, r.y, xb - xa, r.height);
+    ctx.setAttr('globalAlpha', 1);
+  }
+
+  // One path for line and fill; sines sampled at about 2 px, capped per segment.
+  ctx.beginPath();
+  let first = true;
+  let lastX = 0;
+  const put = (t: number, hz: number) => {
+    const x = timeToX(vp, r, t);
+    const y = hzToY(vp, r, hz);
+    if (first) {
+      ctx.moveTo(x, y);
+      first = false;
+    } else ctx.lineTo(x, y);
+    lastX = x;
+  };
+  const firstX = timeToX(vp, r, starts[segFrom]);
+  for (let i = segFrom; i <= segTo; i++) {
+    const seg = segs[i];
+    const t0 = starts[i];
+    if (seg.kind === 'ramp') {
+      put(t0, seg.fromHz);
+      put(starts[i + 1], seg.toHz);
+    } else {
+      const a = Math.max(t0, xToTime(vp, r, r.x - 2));
+      const b = Math.min(starts[i + 1], xToTime(vp, r, r.x + r.width + 2));
+      if (b <= a) {
+        put(t0, segmentRate(seg, 0));
+        put(starts[i + 1], segmentRate(seg, seg.durationS));
+        continue;
+      }
+      const px = Math.abs(timeToX(vp, r, b) - timeToX(vp, r, a));
+      const n = Math.min(4000, Math.max(8, Math.ceil(px / 2), Math.ceil((b - a) * seg.freqHz * 16)));
+      for (let k = 0; k <= n; k++) {
+        const t = a + ((b - a) * k) / n;
+        put(t, segmentRate(seg, t - t0));
+      }
+    }
+  }
+  ctx.setAttr('strokeStyle', palette.envelope);
+  ctx.setAttr('lineWidth', 2);
+  ctx.setAttr('lineJoin', 'round');
+  ctx.stroke();
+  const baseY = hzToY(vp, r, 0);
+  ctx.lineTo(lastX, baseY);
+  ctx.lineTo(firstX, baseY);
+  ctx.closePath();
+  ctx.setAttr('fillStyle', palette.envelope);
+  ctx.setAttr('globalAlpha', 0.07);
+  ctx.fill();
+  ctx.setAttr('globalAlpha', 1);
+
+  const selected = new Set(doc.selection);
+  const knots = listKnots(segs, from, to, starts);
+  const dense = knots.length > r.width * DENSE_KNOTS_PER_PX;
+  const labels: { x: number; y: number; text: string }[] = [];
+  for (const k of knots) {
+    const x = timeToX(vp, r, k.t);
+    if (x < r.x - 6 || x > r.x + r.width + 6) continue;
+    const y = hzToY(vp, r, k.hz);
+    const faults = s.issuesByKnot.get(k.key);
+    const live = liveFault(k.hz, s.limits);
+    const isSel = selected.has(k.key);
+    if (faults || live) {
+      drawErrorMarker(ctx, x, y, isSel);
+      labels.push({ x, y, text: faults?.[0]?.message ?? live! });
+      continue;
+    }
+    if (dense && !isSel) continue;
+    ctx.beginPath();
+    // Steps show as two knots at one time: offset their rings sideways a hair so both are grabbable.
+    const dx = k.side === 'in' ? -1.5 : k.side === 'out' ? 1.5 : 0;
+    ctx.arc(x + dx, y, isSel ? 5.5 : 4, 0, Math.PI * 2);
+    ctx.setAttr('fillStyle', isSel ? palette.accent : palette.panel);
+    ctx.fill();
+    ctx.setAttr('strokeStyle', palette.accent);
+    ctx.setAttr('lineWidth', 1.5);
+    ctx.stroke();
+  }
+  // Reasons beside the markers, when they fit; the list under the canvas always has them all.
+  if (labels.length <= 6) {
+    ctx.setAttr('font', canvasFont('sans', 10, 600));
+    ctx.setAttr('textBaseline', 'bottom');
+    for (const l of labels) {
+      const text = l.text.length > 60 ? `${l.text.slice(0, 59)}…` : l.text;
+      const w = ctx.measureText(text).width;
+      const right = l.x + 10 + w > r.x + r.width;
+      ctx.setAttr('textAlign', right ? 'right' : 'left');
+      const tx = right ? l.x - 10 : l.x + 10;
+      const ty = Math.max(r.y + 12, l.y - 6);
+      ctx.setAttr('fillStyle', palette.panel);
+      ctx.setAttr('globalAlpha', 0.85);
+      ctx.fillRect(right ? tx - w - 2 : tx - 2, ty - 12, w + 4, 13);
+      ctx.setAttr('globalAlpha', 1);
+      ctx.setAttr('fillStyle', palette.danger);
+      ctx.fillText(text, tx, ty);
+    }
+  }
+  ctx.restore();
+}
+
+/** During a drag the validated issues are a frame behind; limits are checked inline so the marker follows the pointer. */
+function liveFault(hz: number, limits: Limits): string | null {
+  if (hz > limits.ceilingHz) return `${hz.toFixed(1)} Hz is above the ceiling (${limits.ceilingHz} Hz)`;
+  if (limits.maxRateHz !== undefined && hz > limits.maxRateHz) return `${hz.toFixed(1)} Hz is above the rate cap (${limits.maxRateHz} Hz)`;
+  return null;
+}
+
+/** A knot with a problem: a filled diamond with a ring, distinct from normal and selected knots by shape as well as colour. */
+function drawErrorMarker(ctx: Context, x: number, y: number, selected: boolean) {
+  const s = selected ? 7 : 6;
+  ctx.beginPath();
+  ctx.moveTo(x, y - s);
+  ctx.lineTo(x + s, y);
+  ctx.lineTo(x, y + s);
+  ctx.lineTo(x - s, y);
+  ctx.closePath();
+  ctx.setAttr('fillStyle', palette.danger);
+  ctx.fill();
+  ctx.setAttr('strokeStyle', selected ? palette.ink : palette.panel);
+  ctx.setAttr('lineWidth', 1.5);
+  ctx.stroke();
+}
+
+export interface OverlayState {
+  box: { x0: number; y0: number; x1: number; y1: number } | null;
+  readout: { x: number; y: number; text: string } | null;
+  hover: { x: number; y: number } | null;
+}
+
+/** Box selection, the drag readout (time and rate) and the hover ring. */
+export function drawOverlay(ctx: Context, r: PlotRect, o: OverlayState) {
+  ctx.save();
+  if (o.hover) {
+    ctx.beginPath();
+    ctx.arc(o.hover.x, o.hover.y, 8, 0, Math.PI * 2);
+    ctx.setAttr('strokeStyle', palette.accent);
+    ctx.setAttr('globalAlpha', 0.5);
+    ctx.setAttr('lineWidth', 2);
+    ctx.stroke();
+    ctx.setAttr('globalAlpha', 1);
+  }
+  if (o.box) {
+    const x = Math.min(o.box.x0, o.box.x1);
+    const y = Math.min(o.box.y0, o.box.y1);
+    const w = Math.abs(o.box.x1 - o.box.x0);
+    const h = Math.abs(o.box.y1 - o.box.y0);
+    ctx.setAttr('fillStyle', palette.accent);
+    ctx.setAttr('globalAlpha', 0.08);
+    ctx.fillRect(x, y, w, h);
+    ctx.setAttr('globalAlpha', 1);
+    ctx.setAttr('strokeStyle', palette.accent);
+    ctx.setAttr('lineWidth', 1);
+    ctx.setLineDash([4, 3]);
+    ctx.strokeRect(x + 0.5, y + 0.5, w, h);
+    ctx.setLineDash([]);
+  }
+  if (o.readout) {
+    ctx.setAttr('font', canvasFont('mono', 11, 500));
+    const w = ctx.measureText(o.readout.text).width + 12;
+    const bx = Math.min(Math.max(r.x, o.readout.x + 12), r.x + r.width - w);
+    const by = Math.max(r.y, o.readout.y - 30);
+    ctx.setAttr('fillStyle', palette.ink);
+    ctx.setAttr('globalAlpha', 0.9);
+    ctx.fillRect(bx, by, w, 20);
+    ctx.setAttr('globalAlpha', 1);
+    ctx.setAttr('fillStyle', palette.panel);
+    ctx.setAttr('textAlign', 'left');
+    ctx.setAttr('textBaseline', 'middle');
+    ctx.fillText(o.readout.text, bx + 6, by + 10);
+  }
+  ctx.restore();
+}
