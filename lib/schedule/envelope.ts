@@ -133,10 +133,10 @@ export interface EnvelopePoint {
 }
 
 /**
- * Polyline for plots. Ramps are exact with two vertices; sines get at least
- * `pointsPerCycle` points per cycle so peaks are not cut. `maxPoints` bounds the
- * total so a 24 h envelope cannot freeze the editor; when it binds, sines are
- * sampled more coarsely (the plot then shows an outline, not every cycle).
+ * Polyline for plots. Ramps are exact with two vertices; sines get `pointsPerCycle`
+ * points per cycle so peaks are not cut. `maxPoints` bounds the total so a 24 h envelope
+ * cannot freeze the editor: when it binds, sines share what is left after every segment's
+ * minimum (2 points per ramp, 3 per sine) and show an outline rather than every cycle.
  */
 export function envelopePolyline(
   envelope: readonly Segment[],
@@ -145,12 +145,15 @@ export function envelopePolyline(
   const perCycle = opts.pointsPerCycle ?? 24;
   const maxPoints = opts.maxPoints ?? 20_000;
   const starts = segmentStarts(envelope);
-  let wanted = 0;
-  for (const seg of envelope) wanted += seg.kind === 'ramp' ? 2 : Math.ceil(seg.freqHz * seg.durationS * perCycle) + 1;
-  const scale = wanted > maxPoints ? maxPoints / wanted : 1;
+  const wanted = envelope.map((seg) => (seg.kind === 'ramp' ? 2 : Math.max(3, Math.ceil(seg.freqHz * seg.durationS * perCycle) + 1)));
+  const floor = envelope.reduce((n, seg) => n + (seg.kind === 'ramp' ? 2 : 3), 0);
+  const extraWanted = wanted.reduce((n, w, i) => n + w - (envelope[i].kind === 'ramp' ? 2 : 3), 0);
+  const total = floor + extraWanted;
+  const share = total > maxPoints && extraWanted > 0 ? Math.max(0, maxPoints - floor) / extraWanted : 1;
   const out: EnvelopePoint[] = [];
   envelope.forEach((seg, i) => {
-    const n = seg.kind === 'ramp' ? 1 : Math.max(2, Math.ceil(seg.freqHz * seg.durationS * perCycle * scale));
+    const points = seg.kind === 'ramp' ? 2 : 3 + Math.floor((wanted[i] - 3) * share);
+    const n = points - 1;
     for (let k = 0; k <= n; k++) {
       const local = (seg.durationS * k) / n;
       out.push({ t: starts[i] + local, hz: segmentRate(seg, local) });
