@@ -1,6 +1,6 @@
 import type { Spec } from '@/lib/schedule/spec';
 import { envelopeDuration, envelopePolyline } from '@/lib/schedule/envelope';
-import { generateSchedule } from '@/lib/schedule/generate';
+import { generateSchedule } from '@/lib/schedule';
 import { histogram, niceStep } from './bins';
 import { poissonInterval95 } from './poisson';
 import { PREVIEW_DEFAULT_TRIALS, PREVIEW_MAX_TRIALS } from './request';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { envelopeDuration, rateAt } from '@/lib/schedule/envelope';
-import { generateSchedule } from '@/lib/schedule/generate';
+import { generateSchedule } from '@/lib/schedule';
 import { buildPreview, intervalHistogram, PREVIEW_BUDGET, rateEstimate, truncateEnvelope } from '@/lib/preview';
 import { opticalSpec } from './spec-fixture';
 
