@@ -3,7 +3,7 @@
  *
  * At a constant candidate rate λ the kept pulses form a renewal process whose mean
  * interval is m(λ) = D + ∫₀^∞ exp(−λ·H(s)) ds, D the dead time after a kept onset
- * (absolute refractory, or 1/maxRateHz if longer, in whole ticks less half a tick) and H the integrated
+ * (absolute refractory, or 1/maxRateHz if longer, in whole ticks; less half a tick, see below) and H the integrated
  * recovery after it. Without recovery m = D + 1/λ, so the kept rate is λ/(1 + λD):
  * the non-paralyzable dead-time formula (Knoll, Radiation Detection and Measurement, ch. 4).
  *
@@ -14,32 +14,39 @@
 import type { Compiled } from './compile';
 
 export interface DeadTimeModel {
+  /** No pulse is kept sooner than this after a delivered onset (refractory or maxRate, whole ticks). */
   deadS: number;
   absoluteS: number;
   recoveryS: number;
+  /**
+   * An onset sits at the start of its tick, on average half a tick before the candidate
+   * that made it; the next interval is measured from the onset, so in candidate time
+   * intervals are half a tick shorter than the rules alone say.
+   */
+  halfTickS: number;
 }
 
 export function deadTimeModel(c: Compiled): DeadTimeModel {
   return {
-    // An onset sits at the start of its tick, on average half a tick before its candidate,
-    // so in candidate time the dead time is half a tick shorter than its whole ticks.
-    deadS: (Math.max(c.refractoryTicks, c.maxRateTicks) - 0.5) / c.clockHz,
+    deadS: Math.max(c.refractoryTicks, c.maxRateTicks, c.absoluteS * c.clockHz) / c.clockHz,
     absoluteS: c.absoluteS,
     recoveryS: c.recoveryS,
+    halfTickS: 0.5 / c.clockHz,
   };
 }
 
 /** Stationary kept rate at constant candidate rate λ. */
 export function keptRate(lambda: number, m: DeadTimeModel): number {
   if (!(lambda > 0)) return 0;
-  if (m.recoveryS === 0) return lambda / (1 + lambda * m.deadS);
-  return 1 / meanIntervalWithRecovery(lambda, m);
+  return 1 / (m.deadS - m.halfTickS + waitAfterDead(lambda, m));
 }
 
-function meanIntervalWithRecovery(lambda: number, m: DeadTimeModel): number {
+/** Mean wait for a kept candidate once the dead time is over: 1/λ, or ∫ exp(−λ·H(s)) ds with recovery. */
+function waitAfterDead(lambda: number, m: DeadTimeModel): number {
   const r = m.recoveryS;
+  if (r === 0) return 1 / lambda;
   // Recovery already reached when the dead time ends (a maxRate dead time can outlast the absolute period).
-  const a = Math.exp(-(m.deadS - m.absoluteS) / r);
+  const a = Math.exp(-Math.max(0, m.deadS - m.absoluteS) / r);
   const H = (s: number) => s - r * a * (1 - Math.exp(-s / r));
   const S = 30 * r;
   const n = 4000;
@@ -49,7 +56,7 @@ function meanIntervalWithRecovery(lambda: number, m: DeadTimeModel): number {
   const body = (sum * h) / 3;
   // Beyond 30 recovery constants h(x) = 1 to within e^-30, so the tail is exponential.
   const tail = Math.exp(-lambda * H(S)) / lambda;
-  return m.deadS + body + tail;
+  return body + tail;
 }
 
 /** ν(λ) as a function, tabulated when recovery makes each value costly. */

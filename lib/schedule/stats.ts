@@ -26,7 +26,10 @@ export interface Suppressed {
 export interface TrialStats {
   trial: number;
   realizedCount: number;
+  /** Points of the candidate cloud: candidates = thinned + Σ suppressed + realizedCount. */
   candidates: number;
+  /** Candidates above ρ(t): the thinning itself, not a loss. */
+  thinned: number;
   suppressed: Suppressed;
   meanRateHz: number;
 }
@@ -75,6 +78,7 @@ export function trialStats(c: Compiled, trial: number, counts: SweepCounts): Tri
     trial,
     realizedCount: counts.kept,
     candidates: counts.candidates,
+    thinned: counts.thinned,
     suppressed: { refractory: counts.refractory, clock: counts.clock, maxRate: counts.maxRate, window: counts.window },
     meanRateHz: counts.kept / c.durationS,
   };
