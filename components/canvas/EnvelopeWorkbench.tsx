@@ -29,7 +29,7 @@ import {
   splitSpec,
   totalDuration,
   undo,
-  validateDoc,
+  locateIssues,
   zoomTime,
   type EditorDoc,
   type History,
@@ -94,8 +94,9 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
   const doc = history.present;
   const spec = useMemo(() => joinSpec(doc.segments as Spec['envelope'], settings), [doc.segments, settings]);
   const maxRateHz = settings.caps?.maxRateHz;
-  const issues = useMemo(() => validateDoc(doc, { ceilingHz: settings.ceilingHz, maxRateHz }), [doc, settings.ceilingHz, maxRateHz]);
+  // One validation of the whole spec serves both the save button and the canvas markers.
   const blockers = useMemo(() => saveBlockers(spec), [spec]);
+  const issues = useMemo(() => locateIssues(doc, blockers, { ceilingHz: settings.ceilingHz, maxRateHz }), [doc, blockers, settings.ceilingHz, maxRateHz]);
   const preview = usePreview({ spec, valid: blockers.length === 0, trials: previewTrials, url: previewUrl });
 
   const edit = useCallback((next: EditorDoc, tag?: string) => setHistory((h) => commit(h, next, tag)), []);

@@ -9,9 +9,9 @@ export type SaveResult = { ok: true } | { ok: false; errors: { path: string; mes
  * they only stop saving.
  */
 export function SaveBar({ spec, blockers, readOnly, onSave }: { spec: Spec; blockers: readonly SpecError[]; readOnly?: boolean; onSave?: (spec: Spec) => Promise<SaveResult> }) {
-  const [state, setState] = useState<{ kind: 'idle' } | { kind: 'saving' } | { kind: 'saved'; json: string } | { kind: 'failed'; errors: SpecError[] }>({ kind: 'idle' });
-  const json = JSON.stringify(spec);
-  const savedNow = state.kind === 'saved' && state.json === json;
+  const [state, setState] = useState<{ kind: 'idle' } | { kind: 'saving' } | { kind: 'saved'; spec: Spec } | { kind: 'failed'; errors: SpecError[] }>({ kind: 'idle' });
+  // The workbench makes a new spec object on every edit, so identity says "unchanged since saving".
+  const savedNow = state.kind === 'saved' && state.spec === spec;
   const blocked = blockers.length > 0;
 
   const save = async () => {
@@ -19,7 +19,7 @@ export function SaveBar({ spec, blockers, readOnly, onSave }: { spec: Spec; bloc
     setState({ kind: 'saving' });
     try {
       const r = await onSave(spec);
-      setState(r.ok ? { kind: 'saved', json } : { kind: 'failed', errors: r.errors });
+      setState(r.ok ? { kind: 'saved', spec } : { kind: 'failed', errors: r.errors });
     } catch (err) {
       setState({ kind: 'failed', errors: [{ path: '$', message: err instanceof Error ? err.message : 'Saving failed.' }] });
     }

@@ -2,7 +2,7 @@ import type { Context } from 'konva/lib/Context';
 import { segmentRate } from '@/lib/schedule/envelope';
 import { formatTick, niceTicks } from './model/ticks';
 import { hzToY, timeToX, xToTime, type PlotRect, type Viewport } from './model/viewport';
-import { listKnots } from './model/knots';
+import { findKnot, listKnots, type Knot } from './model/knots';
 import { visibleBoundaries } from './model/hit';
 import type { EditorDoc } from './model/doc';
 import type { DocIssue } from './model/validate';
@@ -147,11 +147,41 @@ export function drawEnvelope(ctx: Context, vp: Viewport, r: PlotRect, s: Envelop
   }
 
   // One path for line and fill; sines sampled at about 2 px, capped per segment.
+  // With more segments than pixels, each pixel column is drawn as its min–max bar:
+  // the picture is the same, the path is a few thousand vertices instead of tens of thousands.
   ctx.beginPath();
   let first = true;
   let lastX = 0;
+  const dense = segTo - segFrom + 1 > r.width;
+  let col = Number.NaN;
+  let colMin = 0;
+  let colMax = 0;
+  const flush = () => {
+    if (Number.isNaN(col)) return;
+    const yMin = hzToY(vp, r, colMin);
+    const yMax = hzToY(vp, r, colMax);
+    if (first) {
+      ctx.moveTo(col, yMin);
+      first = false;
+    } else ctx.lineTo(col, yMin);
+    if (yMax !== yMin) ctx.lineTo(col, yMax);
+    lastX = col;
+  };
   const put = (t: number, hz: number) => {
     const x = timeToX(vp, r, t);
+    if (dense) {
+      const c = Math.round(x);
+      if (c !== col) {
+        flush();
+        col = c;
+        colMin = hz;
+        colMax = hz;
+      } else {
+        if (hz < colMin) colMin = hz;
+        if (hz > colMax) colMax = hz;
+      }
+      return;
+    }
     const y = hzToY(vp, r, hz);
     if (first) {
       ctx.moveTo(x, y);
@@ -182,6 +212,7 @@ export function drawEnvelope(ctx: Context, vp: Viewport, r: PlotRect, s: Envelop
       }
     }
   }
+  if (dense) flush();
   ctx.setAttr('strokeStyle', palette.envelope);
   ctx.setAttr('lineWidth', 2);
   ctx.setAttr('lineJoin', 'round');
@@ -196,10 +227,20 @@ export function drawEnvelope(ctx: Context, vp: Viewport, r: PlotRect, s: Envelop
   ctx.setAttr('globalAlpha', 1);
 
   const selected = new Set(doc.selection);
-  const knots = listKnots(segs, from, to, starts);
-  const dense = knots.length > r.width * DENSE_KNOTS_PER_PX;
+  const knotsPerPx = (to - from + 1) / r.width;
+  // Too many knots to tell apart: draw only the selected and the faulty ones, found without
+  // building an object per knot (this runs on every drag frame).
+  const candidates =
+    knotsPerPx > DENSE_KNOTS_PER_PX
+      ? [...doc.selection, ...s.issuesByKnot.keys(), ...faultyKeys(segs, from, to, s.limits)]
+          .map((key) => findKnot(segs, key, starts))
+          .filter((k): k is Knot => k !== null && k.boundary >= from && k.boundary <= to)
+      : listKnots(segs, from, to, starts);
   const labels: { x: number; y: number; text: string }[] = [];
-  for (const k of knots) {
+  const drawn = new Set<string>();
+  for (const k of candidates) {
+    if (drawn.has(k.key)) continue;
+    drawn.add(k.key);
     const x = timeToX(vp, r, k.t);
     if (x < r.x - 6 || x > r.x + r.width + 6) continue;
     const y = hzToY(vp, r, k.hz);
@@ -211,7 +252,6 @@ export function drawEnvelope(ctx: Context, vp: Viewport, r: PlotRect, s: Envelop
       labels.push({ x, y, text: faults?.[0]?.message ?? live! });
       continue;
     }
-    if (dense && !isSel) continue;
     ctx.beginPath();
     // Steps show as two knots at one time: offset their rings sideways a hair so both are grabbable.
     const dx = k.side === 'in' ? -1.5 : k.side === 'out' ? 1.5 : 0;
@@ -242,6 +282,20 @@ export function drawEnvelope(ctx: Context, vp: Viewport, r: PlotRect, s: Envelop
     }
   }
   ctx.restore();
+}
+
+/** Keys of ramp ends above a limit in boundaries [from, to], scanning numbers only. */
+function faultyKeys(segs: EditorDoc['segments'], from: number, to: number, limits: Limits): string[] {
+  const top = Math.min(limits.ceilingHz, limits.maxRateHz ?? Infinity);
+  const keys: string[] = [];
+  for (let b = from; b <= to; b++) {
+    const before = segs[b - 1];
+    const after = segs[b];
+    const inHz = before?.kind === 'ramp' ? before.toHz : -1;
+    const outHz = after?.kind === 'ramp' ? after.fromHz : -1;
+    if (inHz > top || outHz > top) keys.push(String(b), `${b}<`, `${b}>`);
+  }
+  return keys;
 }
 
 /** During a drag the validated issues are a frame behind; limits are checked inline so the marker follows the pointer. */

@@ -37,8 +37,10 @@ export const PREVIEW_DEBOUNCE_MS = 400;
  * newer preview. The last preview stays on screen while the next one loads.
  */
 export function usePreview({ spec, valid, trials, url }: { spec: Spec; valid: boolean; trials: number; url: string }) {
-  const body = useMemo(() => (valid ? JSON.stringify({ spec, trials }) : null), [spec, valid, trials]);
-  const settled = useDebouncedValue(body, PREVIEW_DEBOUNCE_MS);
+  // Debounce the spec object, not its JSON: a long envelope is serialized once per pause, not per edit.
+  const wanted = valid ? spec : null;
+  const settledSpec = useDebouncedValue(wanted, PREVIEW_DEBOUNCE_MS);
+  const settled = useMemo(() => (settledSpec ? JSON.stringify({ spec: settledSpec, trials }) : null), [settledSpec, trials]);
   const queryClient = useQueryClient();
 
   const query = useQuery({
@@ -61,9 +63,9 @@ export function usePreview({ spec, valid, trials, url }: { spec: Spec; valid: bo
     data: query.data,
     error: query.error as PreviewRequestError | null,
     /** Waiting for edits to pause, or a request in flight. */
-    loading: body !== settled || query.isFetching,
+    loading: wanted !== settledSpec || query.isFetching,
     /** What is shown belongs to an older version of the spec. */
-    stale: query.isPlaceholderData || body !== settled,
-    blocked: body === null,
+    stale: query.isPlaceholderData || wanted !== settledSpec,
+    blocked: wanted === null,
   };
 }

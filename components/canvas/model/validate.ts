@@ -1,4 +1,4 @@
-import { SPEC_FORMAT, parseSpec, type Spec } from '@/lib/schedule/spec';
+import { SPEC_FORMAT, parseSpec, type Spec, type SpecError } from '@/lib/schedule/spec';
 import { boundaries, type EditorDoc } from './doc';
 import { knotsAt } from './knots';
 
@@ -39,7 +39,15 @@ export function validateDoc(doc: EditorDoc, ctx: ValidateContext): DocIssue[] {
     clockHz: 10_000,
   };
   const result = parseSpec(probe);
-  if (result.ok) return [];
+  return result.ok ? [] : locateIssues(doc, result.errors, ctx);
+}
+
+/**
+ * Places spec errors (from parseSpec of the whole spec, or of the probe above) on the
+ * doc. Only envelope paths are kept. Lets the workbench validate once for saving and
+ * for the markers.
+ */
+export function locateIssues(doc: EditorDoc, errors: readonly SpecError[], ctx: ValidateContext): DocIssue[] {
   const starts = boundaries(doc.segments);
   const issues: DocIssue[] = [];
   const seen = new Set<string>();
@@ -51,7 +59,7 @@ export function validateDoc(doc: EditorDoc, ctx: ValidateContext): DocIssue[] {
     }
   };
 
-  for (const err of result.errors) {
+  for (const err of errors) {
     if (err.path !== 'envelope' && !err.path.startsWith('envelope[')) continue;
     const m = /^envelope\[(\d+)\](?:\.(\w+))?/.exec(err.path);
     if (!m) {
