@@ -6,11 +6,11 @@ const root = fileURLToPath(new URL('.', import.meta.url));
 // Two layers: pure unit tests, and integration tests against the real PostgreSQL
 // cluster that scripts/test.mjs starts (DATABASE_URL points at it).
 export default defineConfig({
-  resolve: { alias: { '@': root } },
+  resolve: { alias: { '@': root, 'server-only': `${root}tests/support/server-only.ts` } },
   test: {
     projects: [
       {
-        resolve: { alias: { '@': root } },
+        resolve: { alias: { '@': root, 'server-only': `${root}tests/support/server-only.ts` } },
         test: {
           name: 'unit',
           environment: 'node',
@@ -18,7 +18,7 @@ export default defineConfig({
         },
       },
       {
-        resolve: { alias: { '@': root } },
+        resolve: { alias: { '@': root, 'server-only': `${root}tests/support/server-only.ts` } },
         test: {
           name: 'integ',
           environment: 'node',

@@ -25,7 +25,8 @@ if (!process.env.SMTP_URL && !(await portFree(mailPort, host))) {
 
 const pgData = join(dataRoot, 'pg');
 const databaseUrl = process.env.DATABASE_URL ?? startCluster({ bin, dataDir: pgData, port: pgPort, database: 'pulseloom' });
-const appUrl = process.env.APP_URL ?? `http://${host}:${appPort}`;
+// Auth.js builds its links on localhost; one host everywhere keeps cookies and links together.
+const appUrl = process.env.APP_URL ?? `http://localhost:${appPort}`;
 const env = {
   ...process.env,
   DATABASE_URL: databaseUrl,

@@ -6,7 +6,7 @@ import { usePathname } from 'next/navigation';
 export function LabNav({ items }: { items: { href: string; label: string }[] }) {
   const path = usePathname();
   return (
-    <nav aria-label="Lab" className="flex flex-wrap gap-1">
+    <nav aria-label="Lab sections" className="flex flex-wrap gap-1">
       {items.map((item) => {
         const active = item.href === '/' ? path === '/' : path.startsWith(item.href);
         return (

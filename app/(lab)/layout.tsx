@@ -27,7 +27,7 @@ export default async function LabLayout({ children }: { children: React.ReactNod
           <div className="flex items-center gap-2 text-sm">
             {member.labs.length > 1 ? (
               <form action={switchLabAction} className="flex items-center gap-2">
-                <label htmlFor="lab-switch" className="sr-only">Lab</label>
+                <label htmlFor="lab-switch" className="sr-only">Current lab</label>
                 <select id="lab-switch" name="labId" defaultValue={member.lab.id} className="field w-auto py-1">
                   {member.labs.map((l) => (
                     <option key={l.labId} value={l.labId}>{l.labName}</option>

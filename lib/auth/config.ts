@@ -3,8 +3,7 @@ import Credentials from 'next-auth/providers/credentials';
 import Nodemailer from 'next-auth/providers/nodemailer';
 import { DrizzleAdapter } from '@auth/drizzle-adapter';
 import { eq } from 'drizzle-orm';
-import { z } from 'zod';
-import { db } from '@/db/client';
+import { db, getDb } from '@/db/client';
 import { accounts, sessions, users, verificationTokens } from '@/db/schema';
 import { env } from '@/lib/env';
 import { mailTransport } from '@/lib/mail/transport';
@@ -12,11 +11,7 @@ import { signInLinkMessage } from '@/lib/mail/templates';
 import { verifyPassword } from './password';
 import { checkSignIn, clientAddress, recordSignInFailure } from './rate-limit';
 import { acceptInvitation } from './invitations';
-
-export const passwordSignInSchema = z.object({
-  email: z.string().trim().toLowerCase().email('Enter an e-mail address'),
-  password: z.string().min(1, 'Enter your password').max(200),
-});
+import { passwordSignInSchema } from './schemas';
 
 class TooManyAttempts extends CredentialsSignin {
   code = 'rate_limited';
@@ -30,7 +25,7 @@ function config(): NextAuthConfig {
   return {
     secret: e.AUTH_SECRET,
     trustHost: true,
-    adapter: DrizzleAdapter(db, {
+    adapter: DrizzleAdapter(getDb(), {
       usersTable: users,
       accountsTable: accounts,
       sessionsTable: sessions,

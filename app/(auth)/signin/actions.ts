@@ -3,7 +3,7 @@
 import { AuthError, CredentialsSignin } from 'next-auth';
 import { z } from 'zod';
 import { signIn } from '@/lib/auth/config';
-import { passwordSignInSchema } from '@/lib/auth/config';
+import { passwordSignInSchema } from '@/lib/auth/schemas';
 import { zodIssues, type FieldIssue } from '@/lib/http/errors';
 
 export type SignInState = { message?: string; fieldErrors?: FieldIssue[]; email?: string };

@@ -3,7 +3,7 @@
 import { useState, useTransition } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { inviteSchema, type InviteInput } from '@/lib/auth/member-schemas';
+import { inviteSchema, type InviteInput } from '@/lib/auth/schemas';
 import { ROLE_LABELS, ROLES } from '@/lib/auth/roles';
 import { inviteMember } from './actions';
 

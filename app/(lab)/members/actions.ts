@@ -7,7 +7,7 @@ import { db } from '@/db/client';
 import { memberships } from '@/db/schema';
 import { recordAudit } from '@/db/queries/audit';
 import { memberAction } from '@/lib/auth/guard';
-import { inviteSchema, memberRolesSchema } from '@/lib/auth/member-schemas';
+import { inviteSchema, memberRolesSchema } from '@/lib/auth/schemas';
 import { createInvitationWith } from '@/lib/auth/invite';
 import { conflict, notFound } from '@/lib/http/errors';
 import { clientAddress } from '@/lib/auth/rate-limit';
