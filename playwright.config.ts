@@ -7,6 +7,7 @@ const baseURL = `http://localhost:${port}`;
 export default defineConfig({
   testDir: 'tests/e2e',
   testMatch: '**/*.e2e.ts',
+  outputDir: process.env.PULSELOOM_PW_OUT ?? 'test-results',
   fullyParallel: false,
   workers: 1,
   retries: 0,

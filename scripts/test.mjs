@@ -11,7 +11,12 @@ import { freePort, run, startService, stopService, waitForPort } from './lib/pro
 import { markBuilt } from './lib/build.mjs';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
-const only = process.argv.slice(2); // e.g. `npm test -- unit integ` while developing
+// While developing: `npm test -- integ` runs one layer; further words are passed to its runner
+// as file filters, e.g. `npm test -- e2e tests/e2e/rigs.e2e.ts`.
+const LAYERS = ['unit', 'integ', 'e2e'];
+const args = process.argv.slice(2);
+const only = args.filter((a) => LAYERS.includes(a));
+const filters = args.filter((a) => !LAYERS.includes(a));
 const want = (layer) => only.length === 0 || only.includes(layer);
 
 ensureDependencies(root);
@@ -76,11 +81,11 @@ try {
 
   if (want('unit')) {
     const report = join(work, 'unit.json');
-    layer('unit', bin_('vitest'), ['run', '--project', 'unit', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`], report, 'vitest');
+    layer('unit', bin_('vitest'), ['run', '--project', 'unit', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...filters], report, 'vitest');
   }
   if (want('integ')) {
     const report = join(work, 'integ.json');
-    layer('integration (PostgreSQL)', bin_('vitest'), ['run', '--project', 'integ', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`], report, 'vitest');
+    layer('integration (PostgreSQL)', bin_('vitest'), ['run', '--project', 'integ', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...filters], report, 'vitest');
   }
   if (want('e2e')) {
     console.log('\n━━ browser: production build ━━');
@@ -93,7 +98,7 @@ try {
       services.push(catcher);
       await waitForPort(mailPort, 20_000);
       const report = join(work, 'e2e.json');
-      layer('browser (Chromium)', bin_('playwright'), ['test'], report, 'playwright', { PLAYWRIGHT_JSON_OUTPUT_NAME: report });
+      layer('browser (Chromium)', bin_('playwright'), ['test', ...filters], report, 'playwright', { PLAYWRIGHT_JSON_OUTPUT_NAME: report });
     }
   }
 } catch (err) {

@@ -24,11 +24,13 @@ export function sourceFingerprint(root) {
   return h.digest('hex');
 }
 
+const distDir = () => process.env.PULSELOOM_DIST_DIR ?? '.next';
+
 export function buildIsCurrent(root) {
-  const stamp = join(root, '.next', 'pulseloom-build-stamp');
-  return existsSync(join(root, '.next', 'BUILD_ID')) && existsSync(stamp) && readFileSync(stamp, 'utf8') === sourceFingerprint(root);
+  const stamp = join(root, distDir(), 'pulseloom-build-stamp');
+  return existsSync(join(root, distDir(), 'BUILD_ID')) && existsSync(stamp) && readFileSync(stamp, 'utf8') === sourceFingerprint(root);
 }
 
 export function markBuilt(root) {
-  writeFileSync(join(root, '.next', 'pulseloom-build-stamp'), sourceFingerprint(root));
+  writeFileSync(join(root, distDir(), 'pulseloom-build-stamp'), sourceFingerprint(root));
 }
