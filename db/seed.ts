@@ -8,6 +8,7 @@ import { fileURLToPath } from 'node:url';
 import * as schema from './schema';
 import { hashPassword } from '../lib/auth/password';
 import { DEMO } from './demo';
+import { SEED_PARTS, type SeedContext } from './seeds';
 
 export async function seed(url: string): Promise<void> {
   const sql = postgres(url, { max: 1, onnotice: () => {} });
@@ -24,6 +25,7 @@ export async function seed(url: string): Promise<void> {
         labIds[lab.slug] = row!.id;
       }
 
+      const userIds: Record<string, string> = {};
       const passwordHash = await hashPassword(DEMO.password);
       for (const person of DEMO.people) {
         let [user] = await tx.select().from(schema.users).where(eq(schema.users.email, person.email)).limit(1);
@@ -33,6 +35,7 @@ export async function seed(url: string): Promise<void> {
             .values({ email: person.email, name: person.name, passwordHash, emailVerified: new Date() })
             .returning();
         }
+        userIds[person.email] = user!.id;
         for (const [slug, roles] of Object.entries(person.roles)) {
           await tx
             .insert(schema.memberships)
@@ -41,18 +44,24 @@ export async function seed(url: string): Promise<void> {
         }
       }
 
+      const rigIds: Record<string, string> = {};
       for (const rig of DEMO.rigs) {
         const labId = labIds[rig.lab]!;
-        const [existing] = await tx
+        let [existing] = await tx
           .select({ id: schema.rigs.id })
           .from(schema.rigs)
           .where(and(eq(schema.rigs.labId, labId), eq(schema.rigs.name, rig.name)))
           .limit(1);
         if (!existing) {
           const { lab: _lab, ...values } = rig;
-          await tx.insert(schema.rigs).values({ ...values, labId });
+          [existing] = await tx.insert(schema.rigs).values({ ...values, labId }).returning({ id: schema.rigs.id });
         }
+        rigIds[rig.name] = existing!.id;
       }
+
+      // Later parts of the scenario (each idempotent) build on these ids.
+      const ctx: SeedContext = { tx, labIds, userIds, rigIds };
+      for (const part of SEED_PARTS) await part(ctx);
     });
   } finally {
     await sql.end();
