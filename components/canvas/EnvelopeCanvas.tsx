@@ -13,6 +13,7 @@ import {
   dragPoints,
   findKnot,
   fitView,
+  hzToY,
   issuesByKnot,
   keyAction,
   KEY_HELP,
@@ -23,6 +24,7 @@ import {
   select,
   selectAll,
   selectStep,
+  timeToX,
   xToTime,
   yToHz,
   zoomTime,
@@ -196,7 +198,8 @@ export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
     const vp = vpRef.current;
     const r = rectRef.current;
     const d = latest.current.doc;
-    if (e.button === 1 || e.altKey) {
+    // Middle button, Alt, or a press on the time axis below the plot: pan.
+    if (e.button === 1 || e.altKey || p.y > r.y + r.height + 2) {
       gesture.current = { kind: 'pan', x0: p.x, vp0: vp };
       return;
     }
@@ -225,16 +228,13 @@ export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
     const p = local(e);
     const g = gesture.current;
     if (!g) {
-      // Hover ring: cheap (binary search), and only the overlay redraws.
-      const hit = knotAtPointer(latest.current.doc.segments, drawState.current.starts, vpRef.current, rectRef.current, p.x, p.y);
-      const hover = hit ? { x: p.x, y: p.y } : null;
-      if (hit) {
-        const r = rectRef.current;
-        const vp = vpRef.current;
-        hover!.x = r.x + ((hit.t - vp.t0) / (vp.t1 - vp.t0)) * r.width;
-        hover!.y = r.y + r.height - ((hit.hz - vp.hz0) / (vp.hz1 - vp.hz0)) * r.height;
-      }
-      if (Boolean(hover) !== Boolean(overlay.current.hover) || (hover && overlay.current.hover && hover.x !== overlay.current.hover.x)) {
+      // Hover ring: cheap (binary search), and only the overlay redraws, only when it changes.
+      const vp = vpRef.current;
+      const r = rectRef.current;
+      const hit = knotAtPointer(latest.current.doc.segments, drawState.current.starts, vp, r, p.x, p.y);
+      const hover = hit ? { x: timeToX(vp, r, hit.t), y: hzToY(vp, r, hit.hz) } : null;
+      const was = overlay.current.hover;
+      if (hover?.x !== was?.x || hover?.y !== was?.y) {
         overlay.current = { ...overlay.current, hover };
         redraw({ over: true });
       }

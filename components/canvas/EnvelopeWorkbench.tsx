@@ -1,7 +1,7 @@
 'use client';
 import dynamic from 'next/dynamic';
 import { useCallback, useMemo, useState } from 'react';
-import type { Spec } from '@/lib/schedule/spec';
+import type { Spec, SpecError } from '@/lib/schedule/spec';
 import { envelopeToCsv, envelopeToSpecJson } from '@/lib/envelope-io';
 import { PREVIEW_DEFAULT_TRIALS, PREVIEW_MAX_TRIALS } from '@/lib/preview/request';
 import { downloadText, safeFileStem } from './download';
@@ -90,6 +90,7 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
   const [grid, setGrid] = useState<SnapGrid>(DEFAULT_GRID);
   const [previewTrials, setPreviewTrials] = useState(PREVIEW_DEFAULT_TRIALS);
   const [importOpen, setImportOpen] = useState(false);
+  const [tablePending, setTablePending] = useState<SpecError[]>([]);
 
   const doc = history.present;
   const spec = useMemo(() => joinSpec(doc.segments as Spec['envelope'], settings), [doc.segments, settings]);
@@ -132,7 +133,7 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
 
   return (
     <div className="space-y-6">
-      <SaveBar spec={spec} blockers={blockers} readOnly={readOnly} onSave={onSave} />
+      <SaveBar spec={spec} blockers={tablePending.length ? [...tablePending, ...blockers] : blockers} readOnly={readOnly} onSave={onSave} />
 
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
         <section className="card min-w-0" aria-label="Envelope">
@@ -225,6 +226,7 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
             selectOnly(next);
             reveal(next);
           }}
+          onPendingErrors={setTablePending}
         />
       </section>
 

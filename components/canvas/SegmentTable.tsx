@@ -3,7 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, type FieldErrors } from 'react-hook-form';
 import { z } from 'zod';
-import { segmentSchema, type Segment } from '@/lib/schedule/spec';
+import { segmentSchema, type Segment, type SpecError } from '@/lib/schedule/spec';
 import {
   boundaries,
   convertSegment,
@@ -29,6 +29,8 @@ export interface SegmentTableProps {
   readOnly?: boolean;
   onEdit: (doc: EditorDoc, tag?: string) => void;
   onSelect: (doc: EditorDoc) => void;
+  /** Cells whose text does not pass the schema yet (the doc keeps the last valid value): saving waits for them. */
+  onPendingErrors?: (errors: SpecError[]) => void;
 }
 
 const SINE_FIELDS = [
@@ -48,7 +50,7 @@ const RAMP_FIELDS = [
  * written to the doc at once, through the same model functions the canvas uses; canvas
  * edits come back in through `values`, so each side always shows the other's changes.
  */
-export function SegmentTable({ doc, issues, readOnly, onEdit, onSelect }: SegmentTableProps) {
+export function SegmentTable({ doc, issues, readOnly, onEdit, onSelect, onPendingErrors }: SegmentTableProps) {
   const n = doc.segments.length;
   const pages = Math.max(1, Math.ceil(n / TABLE_PAGE_ROWS));
   const [page, setPage] = useState(0);
@@ -84,6 +86,22 @@ export function SegmentTable({ doc, issues, readOnly, onEdit, onSelect }: Segmen
     });
     return () => sub.unsubscribe();
   }, [watch]);
+
+  // Report typed-but-invalid cells upward, keyed by text so an unchanged list does not re-render the workbench.
+  const pending: SpecError[] = [];
+  formState.errors.rows?.forEach?.((row, k) => {
+    if (!row) return;
+    for (const [field, err] of Object.entries(row)) {
+      const message = (err as { message?: string } | undefined)?.message;
+      if (message) pending.push({ path: `envelope[${from + k}].${field}`, message: `${message} (typed in the table, not applied yet)` });
+    }
+  });
+  const pendingKey = JSON.stringify(pending);
+  const report = useRef(onPendingErrors);
+  report.current = onPendingErrors;
+  useEffect(() => {
+    report.current?.(JSON.parse(pendingKey) as SpecError[]);
+  }, [pendingKey]);
 
   const rowIssues = useMemo(() => {
     const map = new Map<number, string[]>();

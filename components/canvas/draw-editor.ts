@@ -80,12 +80,13 @@ export function drawBackground(ctx: Context, vp: Viewport, r: PlotRect, limits: 
   ctx.fillText('rate (Hz)', 0, -2);
   ctx.restore();
 
-  limitLine(ctx, vp, r, limits.ceilingHz, palette.danger, `ceiling ${limits.ceilingHz} Hz`, [7, 4]);
-  if (limits.maxRateHz !== undefined) limitLine(ctx, vp, r, limits.maxRateHz, palette.warn, `rate cap ${limits.maxRateHz} Hz`, [2, 3]);
+  // Labels at opposite ends, so a cap just under the ceiling stays readable.
+  limitLine(ctx, vp, r, limits.ceilingHz, palette.danger, `ceiling ${limits.ceilingHz} Hz`, [7, 4], 'right');
+  if (limits.maxRateHz !== undefined) limitLine(ctx, vp, r, limits.maxRateHz, palette.warn, `rate cap ${limits.maxRateHz} Hz`, [2, 3], 'left');
   ctx.restore();
 }
 
-function limitLine(ctx: Context, vp: Viewport, r: PlotRect, hz: number, color: string, label: string, dash: number[]) {
+function limitLine(ctx: Context, vp: Viewport, r: PlotRect, hz: number, color: string, label: string, dash: number[], side: 'left' | 'right') {
   if (!Number.isFinite(hz)) return;
   const y = Math.round(hzToY(vp, r, hz)) + 0.5;
   if (y < r.y || y > r.y + r.height) return;
@@ -99,9 +100,9 @@ function limitLine(ctx: Context, vp: Viewport, r: PlotRect, hz: number, color: s
   ctx.setLineDash([]);
   ctx.setAttr('fillStyle', color);
   ctx.setAttr('font', canvasFont('sans', 10, 600));
-  ctx.setAttr('textAlign', 'right');
+  ctx.setAttr('textAlign', side);
   ctx.setAttr('textBaseline', 'bottom');
-  ctx.fillText(label, r.x + r.width - 4, y - 2);
+  ctx.fillText(label, side === 'right' ? r.x + r.width - 4 : r.x + 4, y - 2);
 }
 
 export interface EnvelopeDrawState {

@@ -30,7 +30,7 @@ export function CountsPerTrial({ counts }: { counts: PreviewResponse['counts'] }
         ctx.restore();
         drawHLine(ctx, r, yOf(r, y, expected), palette.envelope, `envelope ${expected.toFixed(1)}`);
         if (Math.abs(expectedDelivered - expected) > 1e-9) {
-          drawHLine(ctx, r, yOf(r, y, expectedDelivered), palette.warn, `after refractory ${expectedDelivered.toFixed(1)}`, [2, 3]);
+          drawHLine(ctx, r, yOf(r, y, expectedDelivered), palette.warn, `after refractory ${expectedDelivered.toFixed(1)}`, [2, 3], 'left');
         }
       }}
     />

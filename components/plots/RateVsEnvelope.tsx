@@ -2,7 +2,7 @@
 import type { PreviewResponse } from '@/lib/preview/types';
 import { drawAxes, drawHLine, plotRect, xOf, yOf, type AxisSpec } from './axes';
 import { PlotStage } from './PlotStage';
-import { canvasFont, palette } from './palette';
+import { palette } from './palette';
 
 export interface RateVsEnvelopeProps {
   preview: Pick<PreviewResponse, 'rate' | 'envelope' | 'coveredS' | 'ceilingHz' | 'maxRateHz' | 'trials'>;
@@ -62,27 +62,18 @@ export function RateVsEnvelope({ preview }: RateVsEnvelopeProps) {
         ctx.restore();
 
         drawHLine(ctx, r, yOf(r, y, ceilingHz), palette.danger, `ceiling ${ceilingHz} Hz`);
-        if (maxRateHz !== null) drawHLine(ctx, r, yOf(r, y, maxRateHz), palette.warn, `rate cap ${maxRateHz} Hz`, [2, 3]);
+        if (maxRateHz !== null) drawHLine(ctx, r, yOf(r, y, maxRateHz), palette.warn, `rate cap ${maxRateHz} Hz`, [2, 3], 'left');
 
-        // Legend
-        ctx.save();
-        ctx.setAttr('font', canvasFont('sans', 10, 500));
-        ctx.setAttr('textBaseline', 'middle');
-        const items: [string, string][] = [
-          ['envelope', palette.envelope],
-          ['estimate ± 95 %', palette.estimate],
-        ];
-        let lx = r.x + 8;
-        for (const [label, color] of items) {
-          ctx.setAttr('fillStyle', color);
-          ctx.fillRect(lx, r.y + 6, 14, 3);
-          ctx.setAttr('fillStyle', palette.ink);
-          ctx.fillText(label, lx + 18, r.y + 8);
-          lx += 24 + ctx.measureText(label).width;
-        }
-        ctx.restore();
       }}
     >
+      <p className="mt-1 flex flex-wrap gap-x-4 text-xs text-ink">
+        <span className="inline-flex items-center gap-1.5">
+          <span className="inline-block h-0.5 w-4" style={{ background: palette.envelope }} aria-hidden /> envelope (drawn)
+        </span>
+        <span className="inline-flex items-center gap-1.5">
+          <span className="inline-block h-2.5 w-4" style={{ background: palette.estimate, opacity: 0.35 }} aria-hidden /> estimate with 95 % band
+        </span>
+      </p>
       <p className="mt-1 text-xs text-ink-muted">{rate.method}</p>
     </PlotStage>
   );

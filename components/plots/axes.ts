@@ -80,7 +80,7 @@ export function drawAxes(ctx: Context, r: PlotRect, x: AxisSpec, y: AxisSpec, op
 }
 
 /** A horizontal reference line across the plot with a label at its right end. */
-export function drawHLine(ctx: Context, r: PlotRect, y: number, color: string, label: string, dash: number[] = [6, 4]) {
+export function drawHLine(ctx: Context, r: PlotRect, y: number, color: string, label: string, dash: number[] = [6, 4], side: 'left' | 'right' = 'right') {
   if (y < r.y - 0.5 || y > r.y + r.height + 0.5) return;
   ctx.save();
   ctx.setAttr('strokeStyle', color);
@@ -93,8 +93,8 @@ export function drawHLine(ctx: Context, r: PlotRect, y: number, color: string, l
   ctx.setLineDash([]);
   ctx.setAttr('fillStyle', color);
   ctx.setAttr('font', canvasFont('sans', 10, 600));
-  ctx.setAttr('textAlign', 'right');
+  ctx.setAttr('textAlign', side);
   ctx.setAttr('textBaseline', 'bottom');
-  ctx.fillText(label, r.x + r.width - 4, y - 2);
+  ctx.fillText(label, side === 'right' ? r.x + r.width - 4 : r.x + 4, y - 2);
   ctx.restore();
 }

@@ -75,7 +75,7 @@ export const KEY_HELP: readonly [string, string][] = [
   ['Click', 'add a breakpoint on a ramp'],
   ['Drag a point', 'move it (and the other selected points)'],
   ['Drag empty space', 'select the points in the box (Shift adds)'],
-  ['Alt-drag, wheel', 'pan, zoom in time'],
+  ['Drag the time axis, Alt-drag, wheel', 'pan; zoom in time (Shift-wheel pans)'],
   [', / .', 'select previous / next point (Shift extends)'],
   ['Arrows', 'nudge one grid step (Shift: ten)'],
   ['N', 'add a point halfway to the next one'],

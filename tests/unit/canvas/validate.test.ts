@@ -42,3 +42,29 @@ describe('validateDoc', () => {
     expect(validateDoc(doc(hold(2, 1)), { ceilingHz: 20_000 })).toEqual([]);
   });
 });
+
+describe('locateIssues', () => {
+  it('places the errors of a whole-spec validation exactly as validateDoc does', async () => {
+    const { parseSpec, SPEC_FORMAT } = await import('@/lib/schedule/spec');
+    const { locateIssues } = await import('@/components/canvas/model');
+    const d = doc(ramp(4, 5, 120), sine(2, 90, 20, 1), hold(3, 85));
+    const ctx = { ceilingHz: 100, maxRateHz: 80 };
+    const r = parseSpec({
+      format: SPEC_FORMAT,
+      envelope: d.segments,
+      ceilingHz: 100,
+      caps: { maxRateHz: 80 },
+      refractory: { absoluteMs: 0.1, recoveryMs: 0 }, // also wrong, but not the envelope's business
+      pulse: { widthMs: 5, amplitude: 1, unit: 'mW' },
+      trials: 1,
+      seed: 's',
+      clockHz: 10000,
+    });
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    const located = locateIssues(d, r.errors, ctx);
+    expect(located).toEqual(validateDoc(d, ctx));
+    expect(located.some((i) => i.path.startsWith('refractory'))).toBe(false);
+    expect(located.length).toBeGreaterThanOrEqual(4);
+  });
+});
