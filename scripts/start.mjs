@@ -2,7 +2,7 @@
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureDependencies } from './lib/deps.mjs';
-import { ensurePostgresInstalled, startCluster, stopCluster } from './lib/pg.mjs';
+import { clusterRunning, ensurePostgresInstalled, startCluster, stopCluster } from './lib/pg.mjs';
 import { fail, portFree, run, startService, stopService, waitForPort } from './lib/proc.mjs';
 import { buildIsCurrent, markBuilt } from './lib/build.mjs';
 import { authSecret, DEMO_PASSWORD, DEMO_SIGN_INS } from './lib/config.mjs';
@@ -24,6 +24,9 @@ if (!process.env.SMTP_URL && !(await portFree(mailPort, host))) {
 }
 
 const pgData = join(dataRoot, 'pg');
+if (!process.env.DATABASE_URL && !clusterRunning(bin, pgData) && !(await portFree(pgPort, host))) {
+  fail(`port ${pgPort} (PostgreSQL) is taken; set PULSELOOM_PG_PORT to another port.`);
+}
 const databaseUrl = process.env.DATABASE_URL ?? startCluster({ bin, dataDir: pgData, port: pgPort, database: 'pulseloom' });
 // Auth.js builds its links on localhost; one host everywhere keeps cookies and links together.
 const appUrl = process.env.APP_URL ?? `http://localhost:${appPort}`;
