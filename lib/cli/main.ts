@@ -5,8 +5,8 @@
 import { readFileSync } from 'node:fs';
 import type { Writable } from 'node:stream';
 import {
-  csvLines,
-  jsonChunks,
+  csvBytes,
+  jsonBytes,
   parseSpec,
   verifySchedule,
   type ScheduleMeta,
@@ -112,7 +112,7 @@ async function generate(args: string[], io: CliIo): Promise<number> {
     await printErrors(io, a.path, r.errors);
     return 2;
   }
-  const chunks = a.csv ? csvLines(r.spec, a.meta) : jsonChunks(r.spec, a.meta);
+  const chunks = a.csv ? csvBytes(r.spec, a.meta) : jsonBytes(r.spec, a.meta);
   await pipeChunks(chunks, io.stdout);
   return 0;
 }
@@ -145,20 +145,12 @@ async function verify(args: string[], io: CliIo): Promise<number> {
   return 0;
 }
 
-/** Write chunks with backpressure, coalescing small ones, so memory stays flat on long exports. */
-export async function pipeChunks(chunks: Iterable<string>, out: Writable): Promise<void> {
-  let pending = '';
-  for (const c of chunks) {
-    pending += c;
-    if (pending.length >= 1 << 16) {
-      await write(out, pending);
-      pending = '';
-    }
-  }
-  if (pending) await write(out, pending);
+/** Write chunks in order with backpressure, so memory stays flat on long exports. */
+export async function pipeChunks(chunks: Iterable<string | Uint8Array>, out: Writable): Promise<void> {
+  for (const c of chunks) await write(out, c);
 }
 
-function write(out: Writable, text: string): Promise<void> {
+function write(out: Writable, text: string | Uint8Array): Promise<void> {
   return new Promise((resolve, reject) => {
     const ok = out.write(text, (err) => (err ? reject(err) : undefined));
     if (ok) resolve();

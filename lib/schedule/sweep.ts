@@ -151,6 +151,8 @@ export function sweepBlock(
   let seg = segmentAt(starts, c.nSegments, t0);
   let segStart = starts[seg];
   let segEnd = starts[seg + 1];
+  let prevTh = NaN;
+  let prevSin = 0;
 
   let candidates = 0;
   let thinned = 0;
@@ -169,7 +171,7 @@ export function sweepBlock(
     let x = 2091639 * a0 + ac * 2.3283064365386963e-10;
     a0 = a1;
     a1 = a2;
-    ac = x | 0;
+    ac = Math.trunc(x);
     a2 = x - ac;
     let n = 0;
     while (a2 >= cellCdf[n]) n++;
@@ -184,7 +186,7 @@ export function sweepBlock(
       x = 2091639 * a0 + ac * 2.3283064365386963e-10;
       a0 = a1;
       a1 = a2;
-      ac = x | 0;
+      ac = Math.trunc(x);
       a2 = x - ac;
       const v = cs + a2 * cellS;
       let k = i;
@@ -214,16 +216,21 @@ export function sweepBlock(
       } else {
         const tha = c2[seg] * la + c3[seg];
         const thb = c2[seg] * lb + c3[seg];
-        const sa = boundSin(tha);
+        // Consecutive cells share an edge: reuse its sine.
+        const sa = tha === prevTh ? prevSin : boundSin(tha);
         const sb = boundSin(thb);
+        prevTh = thb;
+        prevSin = sb;
         let smin = sa < sb ? sa : sb;
         let smax = sa < sb ? sb : sa;
         if (thb - tha >= TWO_PI) {
           smin = -1;
           smax = 1;
         } else {
-          if (PEAK + TWO_PI * Math.ceil((tha - PEAK) / TWO_PI) <= thb) smax = 1;
-          if (TROUGH + TWO_PI * Math.ceil((tha - TROUGH) / TWO_PI) <= thb) smin = -1;
+          // Multiplying by 1/2π may misplace a peak lying within ~1e-15 rad of a cell edge;
+          // the value missed there is ~depth·1e-30, far inside the pad.
+          if (PEAK + TWO_PI * Math.ceil((tha - PEAK) * INV_TWO_PI) <= thb) smax = 1;
+          if (TROUGH + TWO_PI * Math.ceil((tha - TROUGH) * INV_TWO_PI) <= thb) smin = -1;
         }
         lo = c0[seg] + c1[seg] * smin - pad[seg];
         hi = c0[seg] + c1[seg] * smax + pad[seg];
@@ -236,7 +243,7 @@ export function sweepBlock(
       x = 2091639 * a0 + ac * 2.3283064365386963e-10;
       a0 = a1;
       a1 = a2;
-      ac = x | 0;
+      ac = Math.trunc(x);
       a2 = x - ac;
       const y = a2 * ceilingHz;
       candidates++;
@@ -312,6 +319,7 @@ export function sweepBlock(
 }
 
 const TWO_PI = 2 * Math.PI;
+const INV_TWO_PI = 1 / TWO_PI;
 const PEAK = Math.PI / 2;
 const TROUGH = (3 * Math.PI) / 2;
 
@@ -321,7 +329,7 @@ const TROUGH = (3 * Math.PI) / 2;
  * pads every sine segment's bounds by more than that.
  */
 function boundSin(th: number): number {
-  let r = th - TWO_PI * Math.round(th / TWO_PI);
+  let r = th - TWO_PI * Math.round(th * INV_TWO_PI);
   if (r > PEAK) r = Math.PI - r;
   else if (r < -PEAK) r = -Math.PI - r;
   const r2 = r * r;

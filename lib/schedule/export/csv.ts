@@ -22,7 +22,7 @@
  * JSON strings.
  *
  * Streaming: one pass computes the checksum (it heads the file), a second writes rows;
- * at most one 60 s block of pulses is held at a time.
+ * at most one 60 s block of pulses (and its text) is held at a time.
  */
 import { compileSpec } from '../compile';
 import { ENGINE_ID } from '../engine';
@@ -30,6 +30,7 @@ import { buildManifest, scanSchedule } from '../manifest';
 import type { Spec } from '../spec';
 import { trialBlocks } from '../stream';
 import { assertValid } from '../validate';
+import { ByteWriter, ascii, decimalPlan, writeSeconds } from './ascii';
 import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type MetaValue, type ScheduleMeta } from './meta';
 
 export const CSV_COLUMNS = [
@@ -75,7 +76,11 @@ export function rowSuffix(spec: Spec, channel: string | undefined): string {
   ].join(',');
 }
 
-export function* csvLines(spec: Spec, meta?: ScheduleMeta): Generator<string, void, undefined> {
+/**
+ * The CSV as byte chunks (UTF-8): the header block, then one chunk per 60 s block of a
+ * trial. Prefer this for HTTP bodies and files; csvLines gives the same text as strings.
+ */
+export function* csvBytes(spec: Spec, meta?: ScheduleMeta): Generator<Uint8Array, void, undefined> {
   assertValid(spec);
   const entries = metaEntries(meta);
   const scan = scanSchedule(spec);
@@ -93,21 +98,48 @@ export function* csvLines(spec: Spec, meta?: ScheduleMeta): Generator<string, vo
   );
   for (const [k, v] of entries) head.push(`# ${k}: ${commentValue(v)}`);
   head.push(`# manifest: ${JSON.stringify(manifest)}`, CSV_HEADER);
-  yield head.join('\n') + '\n';
+  yield ascii(head.join('\n') + '\n');
 
+  yield* csvRowBytes(spec, range(spec.trials), meta?.channel === undefined ? undefined : String(meta.channel));
+}
+
+const range = (n: number) => Array.from({ length: n }, (_, i) => i);
+
+/**
+ * Just the rows, for the given trials in the given order, one chunk per 60 s block.
+ * Workers can each write a share of the trials; the header needs the whole checksum.
+ */
+export function* csvRowBytes(spec: Spec, trials: readonly number[], channel?: string): Generator<Uint8Array, void, undefined> {
   const c = compileSpec(spec);
   const clk = c.clockHz;
-  const channel = typeof meta?.channel === 'string' ? meta.channel : meta?.channel === undefined ? undefined : String(meta.channel);
-  const suffix = rowSuffix(spec, channel) + '\n';
-  for (let trial = 0; trial < spec.trials; trial++) {
-    const prefix = `${trial},`;
+  const plan = decimalPlan(clk);
+  const suffix = ascii(rowSuffix(spec, channel) + '\n');
+  const w = new ByteWriter();
+  // A row is at most: trial (4) + index (16) + seconds (~32) + sample (16) + 3 commas + suffix.
+  const rowMax = 72 + suffix.length;
+  for (const trial of trials) {
+    const prefix = ascii(`${trial},`);
     for (const { samples, length, firstIndex } of trialBlocks(c, trial)) {
-      let chunk = '';
+      w.ensure(length * rowMax);
       for (let i = 0; i < length; i++) {
         const s = samples[i];
-        chunk += prefix + (firstIndex + i) + ',' + s / clk + ',' + s + suffix;
+        w.buf.set(prefix, w.pos);
+        w.pos += prefix.length;
+        w.uint(firstIndex + i);
+        w.buf[w.pos++] = 44;
+        writeSeconds(w, s, clk, plan);
+        w.buf[w.pos++] = 44;
+        w.uint(s);
+        w.buf.set(suffix, w.pos);
+        w.pos += suffix.length;
       }
-      yield chunk;
+      yield w.take();
     }
   }
+}
+
+/** The CSV as string chunks (same bytes as csvBytes, decoded). */
+export function* csvLines(spec: Spec, meta?: ScheduleMeta): Generator<string, void, undefined> {
+  const decoder = new TextDecoder();
+  for (const chunk of csvBytes(spec, meta)) yield decoder.decode(chunk);
 }

@@ -19,39 +19,50 @@ import { buildManifest, scanSchedule } from '../manifest';
 import type { Spec } from '../spec';
 import { trialBlocks } from '../stream';
 import { assertValid } from '../validate';
+import { ByteWriter, ascii, decimalPlan, writeSeconds } from './ascii';
 import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type ScheduleMeta } from './meta';
 
-function* numberArray(c: Compiled, trial: number, toValue: (sample: number) => number): Generator<string> {
+/** One trial's onsets as a comma-separated run of JSON numbers, block by block. */
+function* numberRun(c: Compiled, trial: number, w: ByteWriter, asSeconds: boolean): Generator<Uint8Array> {
+  const plan = decimalPlan(c.clockHz);
   let first = true;
   for (const { samples, length } of trialBlocks(c, trial)) {
-    let chunk = '';
+    w.ensure(length * 50);
     for (let i = 0; i < length; i++) {
-      chunk += (first ? '' : ',') + toValue(samples[i]);
+      if (!first) w.buf[w.pos++] = 44;
       first = false;
+      if (asSeconds) writeSeconds(w, samples[i], c.clockHz, plan);
+      else w.uint(samples[i]);
     }
-    yield chunk;
+    yield w.take();
   }
 }
 
-export function* jsonChunks(spec: Spec, meta?: ScheduleMeta): Generator<string, void, undefined> {
+/** The JSON export as UTF-8 byte chunks; jsonChunks gives the same text as strings. */
+export function* jsonBytes(spec: Spec, meta?: ScheduleMeta): Generator<Uint8Array, void, undefined> {
   assertValid(spec);
   const entries = metaEntries(meta);
   const scan = scanSchedule(spec);
   const manifest = buildManifest(spec, scan);
   const c = compileSpec(spec);
-  const clk = c.clockHz;
+  const w = new ByteWriter();
 
   let head = `{"format":${JSON.stringify(SCHEDULE_FORMAT)},`;
   if (meta?.preview) head += `"preview":true,"notice":${JSON.stringify(PREVIEW_NOTICE)},`;
   head += `"meta":${JSON.stringify(Object.fromEntries(entries))},`;
   head += `"manifest":${JSON.stringify(manifest)},"trials":[`;
-  yield head;
+  yield ascii(head);
   for (let trial = 0; trial < spec.trials; trial++) {
-    yield `${trial ? ',' : ''}\n{"trial":${trial},"onsetsS":[`;
-    yield* numberArray(c, trial, (s) => s / clk);
-    yield '],"onsetSamples":[';
-    yield* numberArray(c, trial, (s) => s);
-    yield ']}';
+    yield ascii(`${trial ? ',' : ''}\n{"trial":${trial},"onsetsS":[`);
+    yield* numberRun(c, trial, w, true);
+    yield ascii('],"onsetSamples":[');
+    yield* numberRun(c, trial, w, false);
+    yield ascii(']}');
   }
-  yield `\n],"stats":${JSON.stringify(scan.stats)}}\n`;
+  yield ascii(`\n],"stats":${JSON.stringify(scan.stats)}}\n`);
+}
+
+export function* jsonChunks(spec: Spec, meta?: ScheduleMeta): Generator<string, void, undefined> {
+  const decoder = new TextDecoder();
+  for (const chunk of jsonBytes(spec, meta)) yield decoder.decode(chunk);
 }

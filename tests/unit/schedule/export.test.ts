@@ -15,6 +15,8 @@ import {
 } from '../../../lib/schedule/index';
 import { aleaNext, blockAleaState, blockSeed } from '../../../lib/schedule/seeds';
 import { sha256Hex } from '../../../lib/schedule/sha256';
+import { ByteWriter, decimalPlan, writeSeconds } from '../../../lib/schedule/export/ascii';
+import fc from 'fast-check';
 
 const example = (name: string): Spec =>
   JSON.parse(readFileSync(new URL(`../../../lib/schedule/examples/${name}.json`, import.meta.url), 'utf8')) as Spec;
@@ -77,6 +79,26 @@ describe('CSV export', () => {
   it('encodes comment values with line breaks as JSON strings so one line stays one field', () => {
     const t = [...csvLines(optical, { protocol: 'two\nlines' })].join('');
     expect(t).toContain('# protocol: "two\\nlines"');
+  });
+});
+
+describe('onset_s text', () => {
+  it('is exactly String(onsetSample / clockHz) for every clock, on the fast and the general path (fast-check)', () => {
+    const clocks = [1, 1000, 1024, 10_000, 20_000, 25_000, 30_000, 44_100, 1_000_000, 12_500_000, 100_000_000];
+    fc.assert(
+      fc.property(fc.constantFrom(...clocks), fc.double({ min: 0, max: 86_400, noNaN: true }), (clk, t) => {
+        const sample = Math.floor(t * clk);
+        const w = new ByteWriter();
+        writeSeconds(w, sample, clk, decimalPlan(clk));
+        expect(new TextDecoder().decode(w.take())).toBe(String(sample / clk));
+      }),
+      { numRuns: 3000, seed: 99 },
+    );
+    for (const [clk, s] of [[100_000_000, 1], [10_000_000, 3], [20_000, 0], [10_000, 864_000_000]] as const) {
+      const w = new ByteWriter();
+      writeSeconds(w, s, clk, decimalPlan(clk));
+      expect(new TextDecoder().decode(w.take())).toBe(String(s / clk));
+    }
   });
 });
 

@@ -1,0 +1,182 @@
+/**
+ * Engine benchmark: ratios and sizes, not pass/fail. Run with
+ *   npx tsx tests/bench/engine.bench.ts
+ * The machine is shared, so absolute rates move from run to run; the ratios are
+ * measured in one process, back to back, and are the numbers to compare.
+ *
+ * Rows:
+ *  1. raw uniforms/s of the chosen RNG (seedrandom alea, called as a function)
+ *  2. engine candidates/s (sweep only) and its ratio to half the raw rate (goal ≥ 0.5;
+ *     a candidate needs ≥ 2 uniforms: position and height)
+ *  3. the same envelope by the naive per-time-step Bernoulli method at 0.1 ms (goal: engine ≥ 10× faster)
+ *  4. 1 h and 4 h × 100 trials × 200 Hz ceiling streamed to CSV into a null sink, each in a
+ *     fresh child process: seconds and peak RSS (goal < 5 s and < 150 MB for 1 h; RSS flat in duration)
+ *  5. the CSV row pass split over 2 worker threads: speed-up against 1 thread
+ */
+import { spawnSync } from 'node:child_process';
+import { Writable } from 'node:stream';
+import { fileURLToPath } from 'node:url';
+import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
+import seedrandom from 'seedrandom';
+import { pipeChunks } from '../../lib/cli/main';
+import { compileSpec } from '../../lib/schedule/compile';
+import { csvBytes, csvRowBytes } from '../../lib/schedule/export/csv';
+import type { Spec } from '../../lib/schedule/spec';
+import { runTrial } from '../../lib/schedule/stream';
+
+const here = fileURLToPath(import.meta.url);
+
+/** Our benchmark protocol: a deep 0.05 Hz sine under a 200 Hz ceiling, 2 ms refractory, 10 kHz clock. */
+function benchSpec(hours: number, trials: number): Spec {
+  return {
+    format: 'pulseloom-spec/1',
+    envelope: [{ kind: 'sine', durationS: hours * 3600, meanHz: 100, depthHz: 95, freqHz: 0.05, phaseDeg: 0 }],
+    ceilingHz: 200,
+    refractory: { absoluteMs: 2, recoveryMs: 0 },
+    pulse: { widthMs: 1, amplitude: 5, unit: 'mW' },
+    trials,
+    seed: 'bench-2031',
+    clockHz: 10_000,
+  };
+}
+
+const nullSink = () =>
+  new Writable({
+    decodeStrings: true,
+    write(_chunk, _enc, cb) {
+      cb();
+    },
+  });
+
+function rawUniformsPerSecond(): number {
+  const rng = seedrandom.alea('raw');
+  let acc = 0;
+  for (let i = 0; i < 2e6; i++) acc += rng();
+  const n = 4e7;
+  const t0 = performance.now();
+  for (let i = 0; i < n; i++) acc += rng();
+  const dt = (performance.now() - t0) / 1000;
+  if (acc < 0) console.log(acc);
+  return n / dt;
+}
+
+function engineCandidatesPerSecond(): { rate: number; seconds: number; durationS: number } {
+  const spec = benchSpec(1, 12);
+  const c = compileSpec(spec);
+  runTrial(c, 99, () => {}); // warm-up
+  let candidates = 0;
+  const t0 = performance.now();
+  for (let trial = 0; trial < spec.trials; trial++) candidates += runTrial(c, trial, () => {}).candidates;
+  const seconds = (performance.now() - t0) / 1000;
+  return { rate: candidates / seconds, seconds, durationS: spec.trials * 3600 };
+}
+
+/** The naive method: every 0.1 ms step draws one uniform and fires with probability ρ(t)·dt (same refractory rule). */
+function naiveSecondsPerTrialSecond(): number {
+  const dt = 1e-4;
+  const durationS = 600;
+  const rng = seedrandom.alea('naive');
+  const w = 2 * Math.PI * 0.05;
+  let last = -Infinity;
+  let kept = 0;
+  const t0 = performance.now();
+  const steps = Math.round(durationS / dt);
+  for (let k = 0; k < steps; k++) {
+    const t = k * dt;
+    const p = (100 + 95 * Math.sin(w * t)) * dt;
+    if (rng() < p && t - last >= 0.002) {
+      kept++;
+      last = t;
+    }
+  }
+  const seconds = (performance.now() - t0) / 1000;
+  if (kept < 0) console.log(kept);
+  return seconds / durationS;
+}
+
+async function csvRun(hours: number): Promise<{ seconds: number; peakRssMb: number; bytes: number }> {
+  let bytes = 0;
+  const sink = new Writable({
+    write(chunk: Buffer, _enc, cb) {
+      bytes += chunk.length;
+      cb();
+    },
+  });
+  const t0 = performance.now();
+  await pipeChunks(csvBytes(benchSpec(hours, 100), { channel: 'bench' }), sink);
+  const seconds = (performance.now() - t0) / 1000;
+  return { seconds, peakRssMb: process.resourceUsage().maxRSS / 1024, bytes };
+}
+
+function csvInChild(hours: number): { seconds: number; peakRssMb: number; bytes: number } {
+  const r = spawnSync(process.execPath, [...process.execArgv, here, '--csv-child', String(hours)], { encoding: 'utf8' });
+  if (r.status !== 0) throw new Error(`child failed: ${r.stderr}`);
+  return JSON.parse(r.stdout.trim().split('\n').pop()!);
+}
+
+/** The CSV row pass for some trials (what each worker does), into a null sink. */
+async function rowPass(hours: number, trials: number[]): Promise<void> {
+  await pipeChunks(csvRowBytes(benchSpec(hours, 100), trials, 'bench'), nullSink());
+}
+
+async function workerSpeedup(hours: number): Promise<{ one: number; two: number }> {
+  const all = Array.from({ length: 100 }, (_, i) => i);
+  const runWorkers = async (groups: number[][]) => {
+    const t0 = performance.now();
+    await Promise.all(
+      groups.map(
+        (trials) =>
+          new Promise<void>((resolve, reject) => {
+            const w = new Worker(here, { workerData: { hours, trials }, execArgv: process.execArgv });
+            w.once('message', () => resolve());
+            w.once('error', reject);
+          }),
+      ),
+    );
+    return (performance.now() - t0) / 1000;
+  };
+  const one = await runWorkers([all]);
+  const two = await runWorkers([all.filter((t) => t % 2 === 0), all.filter((t) => t % 2 === 1)]);
+  return { one, two };
+}
+
+const fmt = (x: number, d = 2) => x.toFixed(d);
+const mega = (x: number) => `${fmt(x / 1e6, 1)} M/s`;
+
+async function main() {
+  const raw = rawUniformsPerSecond();
+  const eng = engineCandidatesPerSecond();
+  const naive = naiveSecondsPerTrialSecond();
+  const engineSecPerTrialSec = eng.seconds / eng.durationS;
+  const csv1 = csvInChild(1);
+  const csv4 = csvInChild(4);
+  const par = await workerSpeedup(1);
+  const rows: [string, string, string][] = [
+    ['raw uniforms/s (seedrandom alea)', mega(raw), ''],
+    ['engine candidates/s (sweep only)', mega(eng.rate), ''],
+    ['  ratio to half the raw rate', fmt(eng.rate / (raw / 2)), 'goal ≥ 0.5'],
+    ['naive Bernoulli @ 0.1 ms, s per trial-second', fmt(naive * 1e3, 3) + ' ms', ''],
+    ['engine, s per trial-second', fmt(engineSecPerTrialSec * 1e3, 3) + ' ms', ''],
+    ['  engine speed-up over naive', fmt(naive / engineSecPerTrialSec, 1) + '×', 'goal ≥ 10×'],
+    ['CSV 1 h × 100 trials × 200 Hz → null sink', `${fmt(csv1.seconds)} s, ${fmt(csv1.peakRssMb, 0)} MB peak RSS`, 'goal < 5 s, < 150 MB'],
+    ['CSV 4 h × 100 trials × 200 Hz → null sink', `${fmt(csv4.seconds)} s, ${fmt(csv4.peakRssMb, 0)} MB peak RSS`, 'RSS flat in duration'],
+    ['  CSV bytes (1 h / 4 h)', `${fmt(csv1.bytes / 1e9, 2)} GB / ${fmt(csv4.bytes / 1e9, 2)} GB`, ''],
+    ['CSV row pass 1 h × 100, 1 worker', `${fmt(par.one)} s`, ''],
+    ['CSV row pass 1 h × 100, 2 workers', `${fmt(par.two)} s`, ''],
+    ['  worker speed-up (2 cores)', fmt(par.one / par.two) + '×', ''],
+  ];
+  const w0 = Math.max(...rows.map((r) => r[0].length));
+  const w1 = Math.max(...rows.map((r) => r[1].length));
+  console.log(`\nPulseloom engine benchmark (node ${process.version})\n`);
+  for (const [a, b, c] of rows) console.log(`${a.padEnd(w0)}  ${b.padStart(w1)}  ${c}`);
+}
+
+if (!isMainThread) {
+  const { hours, trials } = workerData as { hours: number; trials: number[] };
+  await rowPass(hours, trials);
+  parentPort!.postMessage('done');
+} else if (process.argv[2] === '--csv-child') {
+  console.log(JSON.stringify(await csvRun(Number(process.argv[3]))));
+} else {
+  await main();
+}
