@@ -76,7 +76,7 @@ const fmtHz = (hz: number) => `${hz.toFixed(1)} Hz`;
  * Konva nodes and layers do not listen: hits are found by the model's binary search.
  */
 export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
-  const { doc, issues, ceilingHz, maxRateHz, viewport, grid, readOnly, height = 340 } = props;
+  const { doc, issues, ceilingHz, maxRateHz, viewport, readOnly, height = 340 } = props;
   const { ref: boxRef, width } = useElementWidth<HTMLDivElement>(800);
   const helpId = useId();
   const [status, setStatus] = useState('');

@@ -1,5 +1,5 @@
 import type { Spec } from '@/lib/schedule/spec';
-import { envelopeDuration, envelopePolyline } from '@/lib/schedule/envelope';
+import { envelopeDuration, envelopePolyline, integrateEnvelope } from '@/lib/schedule/envelope';
 import { generateSchedule } from '@/lib/schedule';
 import { histogram, niceStep } from './bins';
 import { poissonInterval95 } from './poisson';
@@ -14,6 +14,8 @@ import { PREVIEW_FORMAT, type IntervalHistogram, type PreviewResponse, type Rate
  */
 export const PREVIEW_BUDGET = {
   candidates: 400_000,
+  /** Expected pulses over all preview trials: keeps the response near half a megabyte. */
+  pulses: 50_000,
   envelopePoints: 2_000,
   rateBins: 60,
   intervalBins: 40,
@@ -26,10 +28,10 @@ export interface BuildPreviewOptions {
 export function buildPreview(spec: Spec, opts: BuildPreviewOptions = {}): PreviewResponse {
   const trials = Math.min(PREVIEW_MAX_TRIALS, Math.max(1, Math.round(opts.trials ?? PREVIEW_DEFAULT_TRIALS)));
   const durationS = envelopeDuration(spec.envelope);
-  const affordable = PREVIEW_BUDGET.candidates / (spec.ceilingHz * trials);
+  const affordable = Math.min(PREVIEW_BUDGET.candidates / (spec.ceilingHz * trials), timeForPulses(spec.envelope, PREVIEW_BUDGET.pulses / trials, durationS));
   const truncated = affordable < durationS;
-  // Three significant digits: the cut shows in the UI as a round number of seconds.
-  const coveredS = truncated ? Number(affordable.toPrecision(3)) : durationS;
+  // Rounded down to three significant digits: the cut reads as a round number of seconds.
+  const coveredS = truncated ? floorSignificant(affordable, 3) : durationS;
   const envelope = truncated ? truncateEnvelope(spec.envelope, coveredS) : spec.envelope;
 
   const schedule = generateSchedule({ ...spec, envelope, trials });
@@ -73,6 +75,24 @@ export function buildPreview(spec: Spec, opts: BuildPreviewOptions = {}): Previe
       warnings: s.warnings,
     },
   };
+}
+
+/** Earliest time by which the envelope expects `count` pulses (bisection on its closed-form integral). */
+function timeForPulses(envelope: Spec['envelope'], count: number, durationS: number): number {
+  if (integrateEnvelope(envelope, 0, durationS) <= count) return durationS;
+  let lo = 0;
+  let hi = durationS;
+  for (let i = 0; i < 60; i++) {
+    const mid = (lo + hi) / 2;
+    if (integrateEnvelope(envelope, 0, mid) <= count) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}
+
+function floorSignificant(x: number, digits: number): number {
+  const scale = 10 ** (digits - 1 - Math.floor(Math.log10(x)));
+  return Math.floor(x * scale) / scale;
 }
 
 export const RATE_METHOD =

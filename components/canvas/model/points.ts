@@ -1,4 +1,4 @@
-import type { RampSegment, Segment } from '@/lib/schedule/spec';
+import type { RampSegment } from '@/lib/schedule/spec';
 import { segmentIndexAt } from '@/lib/schedule/envelope';
 import { boundaries, createDoc, endRate, MIN_SEGMENT_S, roundS, type EditorDoc } from './doc';
 import { findKnot, knotKey, normalizeSelection, parseKnotKey } from './knots';

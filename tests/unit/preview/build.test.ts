@@ -69,7 +69,9 @@ describe('rate band', () => {
       caps: undefined,
     });
     const p = buildPreview(spec, { trials: 20 });
-    const delivered = p.summary.expectedDeliveredCount / 120;
+    // 72,000 expected pulses exceed the preview budget, so the preview covers only the start.
+    expect(p.truncated).toBe(true);
+    const delivered = p.summary.expectedDeliveredCount / p.coveredS;
     const inside = p.rate.hz.filter((_, k) => p.rate.lowerHz[k] <= delivered && delivered <= p.rate.upperHz[k]).length;
     expect(inside / p.rate.hz.length).toBeGreaterThan(0.85);
   });
@@ -77,15 +79,31 @@ describe('rate band', () => {
 
 describe('long envelopes', () => {
   it('previews the beginning only, and it is the real beginning', () => {
-    const spec = opticalSpec({ envelope: [{ kind: 'sine', durationS: 7200, meanHz: 20, depthHz: 10, freqHz: 0.01, phaseDeg: 0 }] });
+    const spec = opticalSpec({ envelope: [{ kind: 'sine', durationS: 7200, meanHz: 5, depthHz: 3, freqHz: 0.01, phaseDeg: 0 }] });
     const p = buildPreview(spec, { trials: 5 });
     expect(p.truncated).toBe(true);
     expect(p.durationS).toBe(7200);
+    // Candidates: 400,000 / (100 Hz × 5 trials) = 800 s; pulses there (about 20,000) stay under budget.
     expect(p.coveredS).toBe(PREVIEW_BUDGET.candidates / (100 * 5));
     const longer = generateSchedule({ ...spec, envelope: truncateEnvelope(spec.envelope, 2 * p.coveredS), trials: 5 });
     for (let trial = 0; trial < 5; trial++) {
       expect(p.onsetsS[trial]).toEqual(longer.trials[trial].onsetsS.filter((t) => t < p.coveredS));
     }
+  });
+
+  it('also bounds the pulses returned, by the envelope’s expected count', () => {
+    const spec = opticalSpec({
+      ceilingHz: 1000,
+      caps: undefined,
+      refractory: { absoluteMs: 0.2, recoveryMs: 0 },
+      pulse: { widthMs: 0.1, amplitude: 1, unit: 'mW' },
+      envelope: [{ kind: 'ramp', durationS: 3600, fromHz: 900, toHz: 900 }],
+    });
+    const p = buildPreview(spec, { trials: 20 });
+    expect(p.truncated).toBe(true);
+    // 50,000 expected pulses over 20 trials at 900 Hz: 2.777… s, floored to 3 digits.
+    expect(p.coveredS).toBe(2.77);
+    expect(p.summary.realized.total).toBeLessThan(PREVIEW_BUDGET.pulses * 1.05);
   });
 
   it('cuts ramps on their line and sines without moving their phase', () => {
