@@ -40,6 +40,7 @@ const env = {
   MAIL_CATCHER_PORT: String(mailPort),
   // The fake mailbox page is on whenever the fake SMTP server is the one receiving mail.
   PULSELOOM_DEV_MAILBOX: process.env.PULSELOOM_DEV_MAILBOX ?? (process.env.SMTP_URL ? '0' : '1'),
+  NEXT_TELEMETRY_DISABLED: '1',
 };
 
 const tsx = join(root, 'node_modules', '.bin', 'tsx');
