@@ -1,6 +1,6 @@
 'use client';
 import dynamic from 'next/dynamic';
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useDeferredValue, useMemo, useState } from 'react';
 import type { Spec, SpecError } from '@/lib/schedule/spec';
 import { envelopeToCsv, envelopeToSpecJson } from '@/lib/envelope-io';
 import { PREVIEW_DEFAULT_TRIALS, PREVIEW_MAX_TRIALS } from '@/lib/preview/request';
@@ -96,9 +96,17 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
   const spec = useMemo(() => joinSpec(doc.segments as Spec['envelope'], settings), [doc.segments, settings]);
   const maxRateHz = settings.caps?.maxRateHz;
   // One validation of the whole spec serves both the save button and the canvas markers.
-  const blockers = useMemo(() => saveBlockers(spec), [spec]);
-  const issues = useMemo(() => locateIssues(doc, blockers, { ceilingHz: settings.ceilingHz, maxRateHz }), [doc, blockers, settings.ceilingHz, maxRateHz]);
-  const preview = usePreview({ spec, valid: blockers.length === 0, trials: previewTrials, url: previewUrl });
+  // It runs on a deferred copy: on a long envelope the parse takes tens of ms, and the
+  // frame that ends a drag should not wait for it. Saving waits until it has caught up.
+  const checkedSpec = useDeferredValue(spec);
+  const checkedDoc = useDeferredValue(doc);
+  const checking = checkedSpec !== spec;
+  const blockers = useMemo(() => saveBlockers(checkedSpec), [checkedSpec]);
+  const issues = useMemo(
+    () => locateIssues(checkedDoc, checkedDoc.segments === checkedSpec.envelope ? blockers : [], { ceilingHz: checkedSpec.ceilingHz, maxRateHz: checkedSpec.caps?.maxRateHz }),
+    [checkedDoc, checkedSpec, blockers],
+  );
+  const preview = usePreview({ spec: checkedSpec, valid: blockers.length === 0, trials: previewTrials, url: previewUrl });
 
   const edit = useCallback((next: EditorDoc, tag?: string) => setHistory((h) => commit(h, next, tag)), []);
   const selectOnly = useCallback((next: EditorDoc) => setHistory((h) => setSelection(h, next.selection)), []);
@@ -133,7 +141,7 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
 
   return (
     <div className="space-y-6">
-      <SaveBar spec={spec} blockers={tablePending.length ? [...tablePending, ...blockers] : blockers} readOnly={readOnly} onSave={onSave} />
+      <SaveBar spec={spec} checking={checking} blockers={tablePending.length ? [...tablePending, ...blockers] : blockers} readOnly={readOnly} onSave={onSave} />
 
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
         <section className="card min-w-0" aria-label="Envelope">

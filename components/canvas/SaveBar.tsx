@@ -8,7 +8,20 @@ export type SaveResult = { ok: true } | { ok: false; errors: { path: string; mes
  * Save, with the reasons it is blocked right there. Invalid states never stop editing;
  * they only stop saving.
  */
-export function SaveBar({ spec, blockers, readOnly, onSave }: { spec: Spec; blockers: readonly SpecError[]; readOnly?: boolean; onSave?: (spec: Spec) => Promise<SaveResult> }) {
+export function SaveBar({
+  spec,
+  checking = false,
+  blockers,
+  readOnly,
+  onSave,
+}: {
+  spec: Spec;
+  /** The latest edit has not been validated yet (validation runs deferred). */
+  checking?: boolean;
+  blockers: readonly SpecError[];
+  readOnly?: boolean;
+  onSave?: (spec: Spec) => Promise<SaveResult>;
+}) {
   const [state, setState] = useState<{ kind: 'idle' } | { kind: 'saving' } | { kind: 'saved'; spec: Spec } | { kind: 'failed'; errors: SpecError[] }>({ kind: 'idle' });
   // The workbench makes a new spec object on every edit, so identity says "unchanged since saving".
   const savedNow = state.kind === 'saved' && state.spec === spec;
@@ -33,7 +46,7 @@ export function SaveBar({ spec, blockers, readOnly, onSave }: { spec: Spec; bloc
       </p>
       {!readOnly && onSave ? (
         <div className="ml-auto flex flex-col items-end gap-1">
-          <button type="button" className="btn btn-primary" disabled={blocked || state.kind === 'saving'} aria-describedby={blocked ? 'save-blockers' : undefined} onClick={save}>
+          <button type="button" className="btn btn-primary" disabled={blocked || checking || state.kind === 'saving'} aria-describedby={blocked ? 'save-blockers' : undefined} onClick={save}>
             {state.kind === 'saving' ? 'Saving…' : 'Save'}
           </button>
           <p className="text-xs" role="status" aria-live="polite">
