@@ -4,7 +4,7 @@ import { STATUS_LOOK, formatLimit, formatMargin, withUnit } from './format';
 
 type Props = {
   /** A sheet from lib/safety, or from computeSafetySheet (which also says which profile was used). */
-  sheet: SafetySheet & { profile?: SheetProfileInfo };
+  sheet: SafetySheet & { profile?: SheetProfileInfo; schedule?: { measured: boolean; expectedPulses: number } };
   /** Heading level context: the sheet's own title, if the page wants one. */
   title?: string;
 };
@@ -21,6 +21,13 @@ export function SafetySheetView({ sheet, title = 'Safety sheet' }: Props) {
       </div>
 
       {sheet.profile ? <ProfileNote profile={sheet.profile} modality={sheet.modality} /> : null}
+      {sheet.schedule && !sheet.schedule.measured ? (
+        <p className="text-sm text-ink-muted" data-testid="sheet-unmeasured">
+          This schedule (about {Math.round(sheet.schedule.expectedPulses).toLocaleString('en')} pulses over all trials) is
+          too large to generate for the sheet, so rates and windows are bounded from the spec instead. Those bounds can
+          only overstate.
+        </p>
+      ) : null}
 
       <div className="overflow-x-auto rounded-card border border-line bg-panel">
         <table className="table">
@@ -50,7 +57,8 @@ export function SafetySheetView({ sheet, title = 'Safety sheet' }: Props) {
         </p>
       ) : null}
 
-      <Cautions cautions={sheet.cautions} />
+      {/* The approval caution repeats the disclaimer, which closes the sheet on its own. */}
+      <Cautions cautions={sheet.cautions.filter((c) => c.body !== sheet.disclaimer)} />
 
       <p className="rounded-card border border-line bg-paper px-4 py-3 text-sm" data-testid="safety-disclaimer">
         {sheet.disclaimer}

@@ -2,10 +2,10 @@ import 'server-only';
 import { createHash } from 'node:crypto';
 import { profileFor } from '@/db/queries/limit-profiles';
 import { getRig } from '@/db/queries/rigs';
-import { buildSafetySheet, demoProfileFor, windowSecondsFor, type ScheduleSummary } from '@/lib/safety';
+import { buildSafetySheet, demoProfileFor, windowSecondsFor } from '@/lib/safety';
 import { canonicalSpecJson, modalityOf, parseSpec, type Spec } from '@/lib/schedule';
 import { badRequest, notFound } from '@/lib/http/errors';
-import { summarizeSchedule } from './schedule-summary';
+import { summarizeSchedule, type MeasuredSummary } from './schedule-summary';
 import type { ReviewSafetySheet, SheetProfileInfo } from './types';
 
 export type { ReviewSafetySheet, SheetProfileInfo } from './types';
@@ -39,16 +39,16 @@ export async function computeSafetySheet({
     : { id: null, name: profile.name, scope: 'demo', rigName: null };
 
   const schedule = cachedSummary(valid, windowSecondsFor(profile));
-  const sheet = buildSafetySheet({ spec: valid, profile, rig, schedule });
+  const sheet = buildSafetySheet({ spec: valid, profile, rig, schedule: schedule.measured ? schedule : null });
   return { ...sheet, profile: info, schedule };
 }
 
 // A schedule depends only on its spec, so its summary is computed once per spec and
 // window length; a version page and the submit that follows share the work.
 const CACHE_SIZE = 64;
-const cache = new Map<string, ScheduleSummary>();
+const cache = new Map<string, MeasuredSummary>();
 
-function cachedSummary(spec: Spec, windowSeconds: number | undefined): ScheduleSummary {
+function cachedSummary(spec: Spec, windowSeconds: number | undefined): MeasuredSummary {
   const key = createHash('sha256').update(canonicalSpecJson(spec)).update(`|${windowSeconds ?? ''}`).digest('hex');
   const hit = cache.get(key);
   if (hit) {

@@ -5,6 +5,9 @@ export type SheetProfileInfo = { id: string | null; name: string; scope: 'rig' |
 
 export type ReviewSafetySheet = SafetySheet & {
   profile: SheetProfileInfo;
-  /** What was measured on the generated schedule. */
-  schedule: ScheduleSummary;
+  /**
+   * What was measured on the generated schedule. `measured: false` when the schedule
+   * was too large to generate for the sheet: rows then use bounds from the spec.
+   */
+  schedule: ScheduleSummary & { measured: boolean; expectedPulses: number };
 };
