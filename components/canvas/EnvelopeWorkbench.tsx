@@ -125,17 +125,22 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
     [],
   );
 
-  const suggestedSpan: Span = useMemo(() => {
+  const selectionSpan: Span | null = useMemo(() => {
     const starts = boundaries(doc.segments);
     const times = doc.selection.map((k) => findKnot(doc.segments, k, starts)?.t).filter((t): t is number => t !== undefined);
+    if (times.length < 2) return null;
     const lo = Math.min(...times);
     const hi = Math.max(...times);
-    if (times.length >= 2 && hi > lo) return { startS: lo, endS: hi };
-    const T = totalDuration(doc.segments);
+    return hi > lo ? { startS: lo, endS: hi } : null;
+  }, [doc]);
+
+  // First offer: the middle third of what is in view (within the envelope when there is one).
+  const [initialSpan] = useState<Span>(() => {
+    const T = totalDuration(initial.envelope);
     const a = Math.max(0, viewport.t0);
     const b = T > a ? Math.min(T, viewport.t1) : a + 10;
     return { startS: a + (b - a) / 3, endS: a + (2 * (b - a)) / 3 };
-  }, [doc, viewport.t0, viewport.t1]);
+  });
 
   const stem = safeFileStem(downloadName ?? 'envelope');
 
@@ -209,7 +214,7 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
               <h2 id="shape-tool-title" className="mb-3">
                 Shape tool
               </h2>
-              <ShapeInsertForm suggestedSpan={suggestedSpan} onInsert={(shape: Shape, span: Span) => edit(insertShape(doc, shape, span))} />
+              <ShapeInsertForm initialSpan={initialSpan} selectionSpan={selectionSpan} onInsert={(shape: Shape, span: Span) => edit(insertShape(doc, shape, span))} />
             </section>
           ) : null}
           <section className="card" aria-labelledby="settings-title">

@@ -32,6 +32,8 @@ const PARAMS: Record<Shape['kind'], [keyof ShapeFields, string][]> = {
   ],
 };
 
+const round6 = (x: number) => Number(x.toFixed(6));
+
 const KIND_TEXT: Record<Shape['kind'], string> = {
   hold: 'Hold: one rate for the whole span.',
   ramp: 'Ramp: a straight line from one rate to another.',
@@ -39,26 +41,31 @@ const KIND_TEXT: Record<Shape['kind'], string> = {
 };
 
 export interface ShapeInsertFormProps {
-  /** Span offered when the form opens or the selection changes. */
-  suggestedSpan: Span;
+  /** Span offered when the form first shows. */
+  initialSpan: Span;
+  /** Span between the selected points (two or more), offered whenever the selection changes; typed spans are otherwise left alone. */
+  selectionSpan: Span | null;
   disabled?: boolean;
   onInsert: (shape: Shape, span: Span) => void;
 }
 
 /** Replaces a span of the envelope with one exact hold, ramp or sine segment. */
-export function ShapeInsertForm({ suggestedSpan, disabled, onInsert }: ShapeInsertFormProps) {
+export function ShapeInsertForm({ initialSpan, selectionSpan, disabled, onInsert }: ShapeInsertFormProps) {
   const { register, handleSubmit, watch, setValue, formState } = useForm<ShapeFields>({
     resolver: zodResolver(shapeFormSchema) as unknown as Resolver<ShapeFields>,
     mode: 'onChange',
-    defaultValues: { kind: 'hold', startS: suggestedSpan.startS, endS: suggestedSpan.endS, rateHz: 20, fromHz: 5, toHz: 40, meanHz: 20, depthHz: 10, freqHz: 1, phaseDeg: 0 },
+    defaultValues: { kind: 'hold', startS: round6(initialSpan.startS), endS: round6(initialSpan.endS), rateHz: 20, fromHz: 5, toHz: 40, meanHz: 20, depthHz: 10, freqHz: 1, phaseDeg: 0 },
   });
   const kind = watch('kind');
   const errors = formState.errors as Partial<Record<keyof ShapeFields, { message?: string }>>;
 
+  const selStart = selectionSpan?.startS;
+  const selEnd = selectionSpan?.endS;
   useEffect(() => {
-    setValue('startS', Number(suggestedSpan.startS.toFixed(6)), { shouldValidate: true });
-    setValue('endS', Number(suggestedSpan.endS.toFixed(6)), { shouldValidate: true });
-  }, [suggestedSpan.startS, suggestedSpan.endS, setValue]);
+    if (selStart === undefined || selEnd === undefined) return;
+    setValue('startS', round6(selStart), { shouldValidate: true });
+    setValue('endS', round6(selEnd), { shouldValidate: true });
+  }, [selStart, selEnd, setValue]);
 
   const submit = handleSubmit((values) => {
     const parsed = shapeFormSchema.safeParse(values);
