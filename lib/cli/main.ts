@@ -145,15 +145,18 @@ async function verify(args: string[], io: CliIo): Promise<number> {
   return 0;
 }
 
-/** Write chunks in order with backpressure, so memory stays flat on long exports. */
+/**
+ * Write chunks in order, each only after the previous one is handed on. Waiting for the
+ * write callback (not just `drain`) matters: a sink that completes synchronously defers
+ * its bookkeeping to process.nextTick, which a tight await loop would starve, and the
+ * written chunks would pile up in memory.
+ */
 export async function pipeChunks(chunks: Iterable<string | Uint8Array>, out: Writable): Promise<void> {
   for (const c of chunks) await write(out, c);
 }
 
 function write(out: Writable, text: string | Uint8Array): Promise<void> {
   return new Promise((resolve, reject) => {
-    const ok = out.write(text, (err) => (err ? reject(err) : undefined));
-    if (ok) resolve();
-    else out.once('drain', resolve);
+    out.write(text, (err) => (err ? reject(err) : resolve()));
   });
 }

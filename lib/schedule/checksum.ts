@@ -11,6 +11,7 @@
  * Server-side (node:crypto): the engine's seed hashing stays pure for the browser.
  */
 import { createHash, type Hash } from 'node:crypto';
+import { ByteWriter } from './bytes';
 
 export const CHECKSUM_OF =
   "sha256 over UTF-8 lines '<trial>,<onsetSample>\\n' (decimal integers), trials ascending, onsets ascending within a trial, no header";
@@ -19,18 +20,17 @@ const CHUNK = 1 << 16;
 
 export class ChecksumWriter {
   private hash: Hash = createHash('sha256');
-  private buf = new Uint8Array(CHUNK);
-  private pos = 0;
-  private digits = new Uint8Array(24);
+  private w = new ByteWriter(CHUNK + 64);
 
   /** Append pulses of one trial (samples ascending). */
   add(trial: number, samples: ArrayLike<number>, length = samples.length): void {
+    const w = this.w;
     for (let i = 0; i < length; i++) {
-      if (this.pos > CHUNK - 64) this.flush();
-      this.writeInt(trial);
-      this.buf[this.pos++] = 44; // ','
-      this.writeInt(samples[i]);
-      this.buf[this.pos++] = 10; // '\n'
+      if (w.pos > CHUNK) this.flush();
+      w.uint(trial);
+      w.buf[w.pos++] = 44; // ','
+      w.uint(samples[i]);
+      w.buf[w.pos++] = 10; // '\n'
     }
   }
 
@@ -39,19 +39,9 @@ export class ChecksumWriter {
     return `sha256:${this.hash.digest('hex')}`;
   }
 
-  private writeInt(x: number): void {
-    let n = 0;
-    do {
-      const q = Math.floor(x / 10);
-      this.digits[n++] = 48 + (x - q * 10);
-      x = q;
-    } while (x > 0);
-    while (n > 0) this.buf[this.pos++] = this.digits[--n];
-  }
-
   private flush(): void {
-    if (this.pos > 0) this.hash.update(this.buf.subarray(0, this.pos));
-    this.pos = 0;
+    if (this.w.pos > 0) this.hash.update(this.w.buf.subarray(0, this.w.pos));
+    this.w.pos = 0;
   }
 }
 

@@ -15,7 +15,9 @@
  */
 import { spawnSync } from 'node:child_process';
 import { Writable } from 'node:stream';
-import { fileURLToPath } from 'node:url';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
 import seedrandom from 'seedrandom';
 import { pipeChunks } from '../../lib/cli/main';
@@ -25,6 +27,10 @@ import type { Spec } from '../../lib/schedule/spec';
 import { runTrial } from '../../lib/schedule/stream';
 
 const here = fileURLToPath(import.meta.url);
+const tsxDir = dirname(createRequire(import.meta.url).resolve('tsx/package.json'));
+const tsxApi = pathToFileURL(join(tsxDir, 'dist/esm/api/index.mjs')).href;
+/** Workers and children start plain node: load tsx first, then this file. */
+const workerBoot = `import('${tsxApi}').then(async (m) => { m.register(); await import(${JSON.stringify(pathToFileURL(here).href)}); })`;
 
 /** Our benchmark protocol: a deep 0.05 Hz sine under a 200 Hz ceiling, 2 ms refractory, 10 kHz clock. */
 function benchSpec(hours: number, trials: number): Spec {
@@ -109,7 +115,7 @@ async function csvRun(hours: number): Promise<{ seconds: number; peakRssMb: numb
 }
 
 function csvInChild(hours: number): { seconds: number; peakRssMb: number; bytes: number } {
-  const r = spawnSync(process.execPath, [...process.execArgv, here, '--csv-child', String(hours)], { encoding: 'utf8' });
+  const r = spawnSync(process.execPath, ['--import', pathToFileURL(join(tsxDir, 'dist/esm/index.mjs')).href, here, '--csv-child', String(hours)], { encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`child failed: ${r.stderr}`);
   return JSON.parse(r.stdout.trim().split('\n').pop()!);
 }
@@ -127,7 +133,7 @@ async function workerSpeedup(hours: number): Promise<{ one: number; two: number 
       groups.map(
         (trials) =>
           new Promise<void>((resolve, reject) => {
-            const w = new Worker(here, { workerData: { hours, trials }, execArgv: process.execArgv });
+            const w = new Worker(workerBoot, { eval: true, workerData: { hours, trials, entry: here } });
             w.once('message', () => resolve());
             w.once('error', reject);
           }),

@@ -1,69 +1,7 @@
-/**
- * Byte-level text writing for the exporters: millions of rows per second need digits
- * written straight into a buffer instead of numbers turned into strings one by one.
- */
+/** Text helpers for the exporters: bytes of fixed strings, and onset seconds written without String(). */
+import { ByteWriter } from '../bytes';
 
-/** Growable byte buffer with decimal writers. */
-export class ByteWriter {
-  buf: Uint8Array;
-  pos = 0;
-  private digits = new Uint8Array(24);
-
-  constructor(capacity = 1 << 16) {
-    this.buf = new Uint8Array(capacity);
-  }
-
-  ensure(extra: number): void {
-    if (this.pos + extra <= this.buf.length) return;
-    const next = new Uint8Array(Math.max(this.buf.length * 2, this.pos + extra));
-    next.set(this.buf.subarray(0, this.pos));
-    this.buf = next;
-  }
-
-  bytes(b: Uint8Array): void {
-    this.ensure(b.length);
-    this.buf.set(b, this.pos);
-    this.pos += b.length;
-  }
-
-  /** Non-negative safe integer, no padding. Caller ensures room (≤ 16 bytes). */
-  uint(x: number): void {
-    const d = this.digits;
-    let n = 0;
-    do {
-      const q = Math.floor(x / 10);
-      d[n++] = 48 + (x - q * 10);
-      x = q;
-    } while (x > 0);
-    const b = this.buf;
-    let p = this.pos;
-    while (n > 0) b[p++] = d[--n];
-    this.pos = p;
-  }
-
-  /** Exactly `width` digits, zero-padded, with trailing zeros dropped (a fraction). */
-  fraction(x: number, width: number): void {
-    const d = this.digits;
-    for (let i = width - 1; i >= 0; i--) {
-      const q = Math.floor(x / 10);
-      d[i] = 48 + (x - q * 10);
-      x = q;
-    }
-    let end = width;
-    while (end > 0 && d[end - 1] === 48) end--;
-    const b = this.buf;
-    let p = this.pos;
-    for (let i = 0; i < end; i++) b[p++] = d[i];
-    this.pos = p;
-  }
-
-  /** Copy out what was written and start over. */
-  take(): Uint8Array {
-    const out = this.buf.slice(0, this.pos);
-    this.pos = 0;
-    return out;
-  }
-}
+export { ByteWriter };
 
 const encoder = new TextEncoder();
 export const ascii = (s: string): Uint8Array => encoder.encode(s);

@@ -94,6 +94,14 @@ describe('onset_s text', () => {
       }),
       { numRuns: 3000, seed: 99 },
     );
+    fc.assert(
+      fc.property(fc.oneof(fc.nat(), fc.integer({ min: 0, max: 1e15 })), (x) => {
+        const w = new ByteWriter();
+        w.uint(x);
+        expect(new TextDecoder().decode(w.take())).toBe(String(x));
+      }),
+      { numRuns: 3000, seed: 5 },
+    );
     for (const [clk, s] of [[100_000_000, 1], [10_000_000, 3], [20_000, 0], [10_000, 864_000_000]] as const) {
       const w = new ByteWriter();
       writeSeconds(w, s, clk, decimalPlan(clk));

@@ -1,0 +1,77 @@
+/**
+ * Growable byte buffer with decimal writers: exports and checksums write millions of
+ * numbers, and turning each into a string first costs several times more.
+ */
+export class ByteWriter {
+  buf: Uint8Array;
+  pos = 0;
+
+  constructor(capacity = 1 << 16) {
+    this.buf = new Uint8Array(capacity);
+  }
+
+  ensure(extra: number): void {
+    if (this.pos + extra <= this.buf.length) return;
+    const next = new Uint8Array(Math.max(this.buf.length * 2, this.pos + extra));
+    next.set(this.buf.subarray(0, this.pos));
+    this.buf = next;
+  }
+
+  bytes(b: Uint8Array): void {
+    this.ensure(b.length);
+    this.buf.set(b, this.pos);
+    this.pos += b.length;
+  }
+
+  /** Non-negative safe integer in decimal, no padding. Caller ensures room (≤ 16 bytes). */
+  uint(x: number): void {
+    if (x < 1e9) {
+      this.small(x);
+      return;
+    }
+    const hi = Math.floor(x / 1e9);
+    this.small(hi);
+    this.padded(x - hi * 1e9, 9);
+  }
+
+  /** Exactly `width` digits, zero-padded, with trailing zeros dropped (a fraction's digits). */
+  fraction(x: number, width: number): void {
+    const start = this.pos;
+    this.padded(x, width);
+    while (this.pos > start && this.buf[this.pos - 1] === 48) this.pos--;
+  }
+
+  /** Copy out what was written and start over. */
+  take(): Uint8Array {
+    const out = this.buf.slice(0, this.pos);
+    this.pos = 0;
+    return out;
+  }
+
+  /** x < 1e9: digits counted first, then written right to left with int32 arithmetic. */
+  private small(x: number): void {
+    let v = x | 0;
+    const len = v < 10 ? 1 : v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : 9;
+    const b = this.buf;
+    let q = this.pos + len;
+    this.pos = q;
+    do {
+      const y = (v / 10) | 0;
+      b[--q] = 48 + v - y * 10;
+      v = y;
+    } while (v > 0);
+  }
+
+  /** x < 10^width ≤ 1e9, zero-padded to width digits. */
+  private padded(x: number, width: number): void {
+    let v = x | 0;
+    const b = this.buf;
+    let q = this.pos + width;
+    this.pos = q;
+    for (let i = 0; i < width; i++) {
+      const y = (v / 10) | 0;
+      b[--q] = 48 + v - y * 10;
+      v = y;
+    }
+  }
+}
