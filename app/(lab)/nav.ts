@@ -6,6 +6,7 @@ export const NAV: { href: string; label: string; permission: Permission }[] = [
   { href: '/protocols', label: 'Protocols', permission: 'protocols.view' },
   { href: '/reviews', label: 'Reviews', permission: 'reviews.view' },
   { href: '/rigs', label: 'Rigs', permission: 'rigs.view' },
+  { href: '/limits', label: 'Limits', permission: 'limits.manage' },
   { href: '/audit', label: 'Audit', permission: 'audit.view' },
   { href: '/members', label: 'Members', permission: 'members.manage' },
 ];

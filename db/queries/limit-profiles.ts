@@ -1,16 +1,16 @@
 import 'server-only';
 import { and, asc, eq, isNull, ne, sql } from 'drizzle-orm';
 import { db } from '../client';
-import { labs, limitProfiles, rigs } from '../schema';
+import { labs, limitProfiles, rigs, users } from '../schema';
 import { recordAudit } from './audit';
+import { fromLimitColumns, toLimitColumns } from './limit-profile-shape';
 import { limitProfileSchema, type LimitProfile } from '@/lib/safety';
 import { badRequest, conflict, notFound, zodIssues } from '@/lib/http/errors';
 import type { Modality } from '@/lib/schedule/spec';
 
-// The `limits` column holds the profile's limits plus its `whenUnknown` choice; name,
-// modality and rig live in their own columns. Everything that goes in is parsed with
-// limitProfileSchema, and everything that comes out is parsed again, so a row edited
-// by hand can never reach the safety sheet unchecked.
+// Everything that goes in is parsed with limitProfileSchema, and everything that comes
+// out is parsed again (limit-profile-shape.ts), so a row edited by hand can never reach
+// the safety sheet unchecked.
 
 export type StoredLimitProfile = {
   id: string;
@@ -19,12 +19,13 @@ export type StoredLimitProfile = {
   rigName: string | null;
   updatedAt: Date;
   updatedBy: string | null;
+  updatedByEmail: string | null;
   profile: LimitProfile;
 };
 
 export type Actor = { userId: string; label: string };
 
-type Row = typeof limitProfiles.$inferSelect & { rigName: string | null };
+type Row = typeof limitProfiles.$inferSelect & { rigName: string | null; updatedByEmail: string | null };
 
 const columns = {
   id: limitProfiles.id,
@@ -36,11 +37,11 @@ const columns = {
   updatedBy: limitProfiles.updatedBy,
   updatedAt: limitProfiles.updatedAt,
   rigName: rigs.name,
+  updatedByEmail: users.email,
 };
 
 function fromRow(row: Row): StoredLimitProfile {
-  const { whenUnknown, ...limits } = (row.limits ?? {}) as Record<string, unknown>;
-  const parsed = limitProfileSchema.safeParse({ name: row.name, modality: row.modality, rigId: row.rigId, whenUnknown, limits });
+  const parsed = fromLimitColumns(row);
   if (!parsed.success) {
     const where = zodIssues(parsed.error).map((i) => `${i.path}: ${i.message}`).join('; ');
     throw new Error(`Limit profile ${row.id} is stored in a form Pulseloom cannot read (${where}).`);
@@ -52,16 +53,8 @@ function fromRow(row: Row): StoredLimitProfile {
     rigName: row.rigName,
     updatedAt: row.updatedAt,
     updatedBy: row.updatedBy,
+    updatedByEmail: row.updatedByEmail,
     profile: parsed.data,
-  };
-}
-
-function toColumns(profile: LimitProfile) {
-  return {
-    name: profile.name,
-    modality: profile.modality,
-    rigId: profile.rigId ?? null,
-    limits: profile.whenUnknown ? { ...profile.limits, whenUnknown: profile.whenUnknown } : { ...profile.limits },
   };
 }
 
@@ -77,6 +70,7 @@ export async function listLimitProfiles({ labId }: { labId: string }): Promise<S
     .select(columns)
     .from(limitProfiles)
     .leftJoin(rigs, eq(rigs.id, limitProfiles.rigId))
+    .leftJoin(users, eq(users.id, limitProfiles.updatedBy))
     .where(eq(limitProfiles.labId, labId))
     .orderBy(asc(limitProfiles.modality), sql`${limitProfiles.rigId} nulls first`, asc(limitProfiles.name));
   return rows.map(fromRow);
@@ -87,6 +81,7 @@ export async function getLimitProfile({ labId, id }: { labId: string; id: string
     .select(columns)
     .from(limitProfiles)
     .leftJoin(rigs, eq(rigs.id, limitProfiles.rigId))
+    .leftJoin(users, eq(users.id, limitProfiles.updatedBy))
     .where(and(eq(limitProfiles.labId, labId), eq(limitProfiles.id, id)))
     .limit(1);
   return row ? fromRow(row) : null;
@@ -110,6 +105,7 @@ export async function profileFor({
     .select(columns)
     .from(limitProfiles)
     .leftJoin(rigs, eq(rigs.id, limitProfiles.rigId))
+    .leftJoin(users, eq(users.id, limitProfiles.updatedBy))
     .where(and(eq(limitProfiles.labId, labId), eq(limitProfiles.modality, modality)))
     .orderBy(asc(limitProfiles.updatedAt));
   const forRig = rigId ? rows.find((r) => r.rigId === rigId) : undefined;
@@ -176,7 +172,7 @@ export async function createLimitProfile({
     await checkScope(tx, labId, profile);
     const [row] = await tx
       .insert(limitProfiles)
-      .values({ ...toColumns(profile), labId, updatedBy: actor.userId })
+      .values({ ...toLimitColumns(profile), labId, updatedBy: actor.userId })
       .returning({ id: limitProfiles.id });
     await recordAudit(tx, {
       labId,
@@ -214,6 +210,7 @@ export async function updateLimitProfile({
       .select(columns)
       .from(limitProfiles)
       .leftJoin(rigs, eq(rigs.id, limitProfiles.rigId))
+    .leftJoin(users, eq(users.id, limitProfiles.updatedBy))
       .where(and(eq(limitProfiles.labId, labId), eq(limitProfiles.id, id)))
       .for('update', { of: limitProfiles });
     if (!before) throw notFound('That limit profile does not exist in this lab.');
@@ -228,7 +225,7 @@ export async function updateLimitProfile({
     await checkScope(tx, labId, profile, id);
     await tx
       .update(limitProfiles)
-      .set({ ...toColumns(profile), updatedBy: actor.userId, updatedAt: new Date() })
+      .set({ ...toLimitColumns(profile), updatedBy: actor.userId, updatedAt: new Date() })
       .where(and(eq(limitProfiles.labId, labId), eq(limitProfiles.id, id)));
     await recordAudit(tx, {
       labId,

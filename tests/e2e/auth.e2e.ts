@@ -6,8 +6,8 @@ const navOf = (page: import('@playwright/test').Page) => page.getByRole('navigat
 test('each demo role signs in with a password and sees its own navigation', async ({ page }) => {
   const expected: Record<string, string[]> = {
     [DEMO.experimenter]: ['Overview', 'Envelopes', 'Protocols', 'Rigs'],
-    [DEMO.officer]: ['Overview', 'Envelopes', 'Protocols', 'Reviews', 'Rigs', 'Audit'],
-    [DEMO.admin]: ['Overview', 'Envelopes', 'Protocols', 'Rigs', 'Audit', 'Members'],
+    [DEMO.officer]: ['Overview', 'Envelopes', 'Protocols', 'Reviews', 'Rigs', 'Limits', 'Audit'],
+    [DEMO.admin]: ['Overview', 'Envelopes', 'Protocols', 'Rigs', 'Limits', 'Audit', 'Members'],
   };
   for (const [email, items] of Object.entries(expected)) {
     await signInWithPassword(page, email);
