@@ -15,7 +15,7 @@ export const SUPPORTED_ENGINES: readonly string[] = [ENGINE_ID];
 export const ENGINE_METHOD = {
   cloud:
     'per (trial, block b): K = max(1, ceil(60·ceilingHz/4)) cells of L = 60/K s; cell j starts at cs = 60·b + j·L (stop at the first cs >= min(60·(b+1), durationS)); ' +
-    'u -> count n = smallest k with u < F[k], F the Poisson(ceilingHz·L) CDF built as p0 = exp(-mu), pk = p(k-1)·mu/k, Fk = F(k-1) + pk until F stops changing, then a final 1; ' +
+    'u -> count n = smallest k with u < F[k], F the Poisson(mu = ceilingHz·L) CDF built as p0 = exp(-mu), pk = p(k-1)·mu/k, Fk = F(k-1) + pk, stopping at the first k > mu where adding pk leaves F unchanged (or k = 1000), then a final entry 1; ' +
     'then n draws u -> positions cs + u·L, sorted ascending; then per position in order: stop the block if t >= min(60·(b+1), durationS), else one draw u -> height y = u·ceilingHz',
   envelope:
     'rho(t) on the segment holding t, local = t - segmentStart: ramp fromHz + (toHz - fromHz)·(local / durationS); sine meanHz + depthHz·sin(2π·freqHz·local + phaseDeg·π/180)',
