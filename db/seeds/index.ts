@@ -3,6 +3,7 @@ import type { PostgresJsQueryResultHKT } from 'drizzle-orm/postgres-js';
 import type { ExtractTablesWithRelations } from 'drizzle-orm';
 import type * as schema from '../schema';
 import { seedLimitProfiles } from './limits';
+import { seedProtocols } from './protocols';
 
 export type SeedTx = PgTransaction<PostgresJsQueryResultHKT, typeof schema, ExtractTablesWithRelations<typeof schema>>;
 
@@ -17,4 +18,4 @@ export type SeedContext = {
 export type SeedPart = (ctx: SeedContext) => Promise<void>;
 
 /** Parts of the demo scenario, run in order inside the seed transaction. Each must be idempotent. */
-export const SEED_PARTS: SeedPart[] = [seedLimitProfiles];
+export const SEED_PARTS: SeedPart[] = [seedLimitProfiles, seedProtocols];
