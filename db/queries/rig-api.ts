@@ -1,0 +1,89 @@
+import { and, asc, eq, isNull, lt, or, sql } from 'drizzle-orm';
+import { db } from '../client';
+import { protocolVersions, protocols, rigTokens, rigs, users } from '../schema';
+
+/** The token with its rig, by the SHA-256 of the presented secret (unique index). */
+export async function findTokenByHash({ tokenHash }: { tokenHash: string }) {
+  const [row] = await db
+    .select({
+      id: rigTokens.id,
+      name: rigTokens.name,
+      labId: rigTokens.labId,
+      expiresAt: rigTokens.expiresAt,
+      revokedAt: rigTokens.revokedAt,
+      lastUsedAt: rigTokens.lastUsedAt,
+      rig: {
+        id: rigs.id,
+        name: rigs.name,
+        modality: rigs.modality,
+        clockHz: rigs.clockHz,
+        archivedAt: rigs.archivedAt,
+      },
+    })
+    .from(rigTokens)
+    .innerJoin(rigs, and(eq(rigs.id, rigTokens.rigId), eq(rigs.labId, rigTokens.labId)))
+    .where(eq(rigTokens.tokenHash, tokenHash))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * Marks the token used. Skipped when it was marked within the last minute, so a rig
+ * polling in a loop does not turn every read into a row update.
+ */
+export async function touchToken({ tokenId }: { tokenId: string }) {
+  await db
+    .update(rigTokens)
+    .set({ lastUsedAt: sql`now()` })
+    .where(
+      and(
+        eq(rigTokens.id, tokenId),
+        or(isNull(rigTokens.lastUsedAt), lt(rigTokens.lastUsedAt, sql`now() - interval '1 minute'`)),
+      ),
+    );
+}
+
+const approvedOnRig = (labId: string, rigId: string) =>
+  and(eq(protocolVersions.labId, labId), eq(protocolVersions.rigId, rigId), eq(protocolVersions.status, 'approved'));
+
+/** What a rig may fetch: approved versions assigned to it, in its lab. No specs (they can be large). */
+export async function listApprovedForRig({ labId, rigId }: { labId: string; rigId: string }) {
+  return db
+    .select({
+      id: protocolVersions.id,
+      protocolId: protocolVersions.protocolId,
+      name: protocols.name,
+      version: protocolVersions.number,
+      checksum: protocolVersions.approvedChecksum,
+      approvedAt: protocolVersions.decidedAt,
+      clockHz: sql<number | null>`(${protocolVersions.spec}->>'clockHz')::int`,
+      trials: sql<number | null>`(${protocolVersions.spec}->>'trials')::int`,
+    })
+    .from(protocolVersions)
+    .innerJoin(protocols, and(eq(protocols.id, protocolVersions.protocolId), eq(protocols.labId, protocolVersions.labId)))
+    .where(approvedOnRig(labId, rigId))
+    .orderBy(asc(protocols.name), asc(protocolVersions.number));
+}
+
+/** One approved version of the rig, with what its files carry; null when anything does not match. */
+export async function getApprovedForRig({ labId, rigId, versionId }: { labId: string; rigId: string; versionId: string }) {
+  const [row] = await db
+    .select({
+      id: protocolVersions.id,
+      number: protocolVersions.number,
+      spec: protocolVersions.spec,
+      checksum: protocolVersions.approvedChecksum,
+      decidedAt: protocolVersions.decidedAt,
+      protocol: protocols.name,
+      approverName: users.name,
+      approverEmail: users.email,
+    })
+    .from(protocolVersions)
+    .innerJoin(protocols, and(eq(protocols.id, protocolVersions.protocolId), eq(protocols.labId, protocolVersions.labId)))
+    .leftJoin(users, eq(users.id, protocolVersions.decidedBy))
+    .where(and(eq(protocolVersions.id, versionId), approvedOnRig(labId, rigId)))
+    .limit(1);
+  return row ?? null;
+}
+
+export type ApprovedVersion = NonNullable<Awaited<ReturnType<typeof getApprovedForRig>>>;

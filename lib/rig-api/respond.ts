@@ -1,0 +1,88 @@
+/**
+ * The HTTP response for one schedule file, shared by the rig API and the app's export
+ * route so that an approved version gives the same bytes and headers through both.
+ */
+import type { ScheduleMeta, Spec } from '@/lib/schedule';
+import { byteStream, cacheKey, cachedScheduleBody, scheduleChunks, storedSpec } from './render';
+import {
+  MEDIA_TYPES,
+  contentDisposition,
+  entityTag,
+  ifNoneMatchHits,
+  scheduleFileName,
+  type ScheduleFormat,
+} from './format';
+
+export type ApprovedFile = {
+  id: string;
+  number: number;
+  spec: unknown;
+  checksum: string;
+  decidedAt: Date | null;
+  protocol: string;
+  approverName: string | null;
+  approverEmail: string | null;
+};
+
+/** Descriptive header of an approved file. The checksum and manifest are written by the engine. */
+export function approvedMeta(v: ApprovedFile): ScheduleMeta {
+  const by = v.approverEmail ? (v.approverName ? `${v.approverName} <${v.approverEmail}>` : v.approverEmail) : undefined;
+  return {
+    protocol: v.protocol,
+    version: v.number,
+    status: 'approved',
+    approvedBy: by,
+    approvedAt: v.decidedAt?.toISOString(),
+  };
+}
+
+// The file may change only by being withdrawn (then 404): caches must ask every time,
+// and only the requester may keep a copy — it was fetched with a credential.
+const CACHE_CONTROL = 'private, no-cache';
+
+export type FilePlan = { notModified: boolean; etag: string; fileName: string; respond: () => Response };
+
+/** Decides 200 or 304 first, so the caller can audit what happened before responding. */
+export function planApprovedFile(request: Request, v: ApprovedFile, format: ScheduleFormat, vary: string): FilePlan {
+  const etag = entityTag(v.checksum);
+  const fileName = scheduleFileName({ protocol: v.protocol, version: v.number, checksum: v.checksum, format });
+  const common = { ETag: etag, 'Cache-Control': CACHE_CONTROL, Vary: vary };
+  const notModified = ifNoneMatchHits(request.headers.get('if-none-match'), etag);
+  return {
+    notModified,
+    etag,
+    fileName,
+    respond() {
+      if (notModified) return new Response(null, { status: 304, headers: common });
+      const headers: Record<string, string> = {
+        ...common,
+        'Content-Type': MEDIA_TYPES[format],
+        'Content-Disposition': contentDisposition(fileName),
+        'X-Content-Type-Options': 'nosniff',
+      };
+      if (request.method === 'HEAD') return new Response(null, { status: 200, headers });
+      // The spec is parsed only on a cache miss: a long envelope is costly to validate.
+      const file = cachedScheduleBody(cacheKey(v.id, v.checksum, format), () => scheduleChunks(storedSpec(v.spec), approvedMeta(v), format));
+      if (file.length !== null) headers['Content-Length'] = String(file.length);
+      return new Response(file.body as BodyInit, { status: 200, headers });
+    },
+  };
+}
+
+export type PreviewFile = { id: string; number: number; status: string; protocol: string; checksum: string };
+
+/** Unapproved versions: PREVIEW_ file name, the preview notice in the file, never cached, no tag. */
+export function previewFileResponse(spec: Spec, v: PreviewFile, format: ScheduleFormat): Response {
+  const fileName = scheduleFileName({ protocol: v.protocol, version: v.number, checksum: v.checksum, format, preview: true });
+  const meta: ScheduleMeta = { preview: true, protocol: v.protocol, version: v.number, status: v.status };
+  const body = byteStream(scheduleChunks(spec, meta, format));
+  return new Response(body as BodyInit, {
+    status: 200,
+    headers: {
+      'Content-Type': MEDIA_TYPES[format],
+      'Content-Disposition': contentDisposition(fileName),
+      'Cache-Control': 'private, no-store',
+      'X-Content-Type-Options': 'nosniff',
+    },
+  });
+}
