@@ -142,6 +142,7 @@ async function verify(args: string[], io: CliIo): Promise<number> {
     return 1;
   }
   await write(io.stdout, `${args[0]}: OK — ${r.pulses} pulses, ${r.checksum}\n`);
+  if (r.preview) await write(io.stderr, `${args[0]}: note — this file is a PREVIEW — NOT APPROVED FOR USE\n`);
   return 0;
 }
 

@@ -24,6 +24,6 @@ export { CHECKSUM_OF } from './checksum';
 export { ENGINE_ID, SUPPORTED_ENGINES, ENGINE_METHOD } from './engine';
 export { RNG_ALGORITHM, SEED_DERIVATION, BLOCK_SECONDS, blockSeed } from './seeds';
 export { SpecInvalidError, assertValid } from './validate';
-export { csvBytes, csvLines, CSV_COLUMNS, CSV_HEADER } from './export/csv';
+export { csvBytes, csvLines, csvRowBytes, CSV_COLUMNS, CSV_HEADER } from './export/csv';
 export { jsonBytes, jsonChunks } from './export/json';
 export { SCHEDULE_FORMAT, PREVIEW_NOTICE, type ScheduleMeta, type MetaValue } from './export/meta';

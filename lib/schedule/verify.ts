@@ -8,7 +8,7 @@ import { ChecksumWriter, sha256Text } from './checksum';
 import { compileSpec } from './compile';
 import { SUPPORTED_ENGINES } from './engine';
 import { CSV_HEADER, rowSuffix } from './export/csv';
-import { SCHEDULE_FORMAT } from './export/meta';
+import { PREVIEW_NOTICE, SCHEDULE_FORMAT } from './export/meta';
 import { MANIFEST_FORMAT } from './manifest';
 import { parseSpec, type Spec } from './spec';
 import { trialBlocks } from './stream';
@@ -22,6 +22,8 @@ export interface FileTrial {
 
 export interface ScheduleFile {
   kind: 'csv' | 'json';
+  /** Marked PREVIEW — NOT APPROVED FOR USE (a draft). Verification still checks the pulses. */
+  preview: boolean;
   manifest: unknown;
   /** Header fields (CSV comments / JSON meta) that must agree with the manifest. */
   header: Record<string, string>;
@@ -31,7 +33,9 @@ export interface ScheduleFile {
 }
 
 export type ReadResult = { ok: true; file: ScheduleFile } | { ok: false; firstDifference: string };
-export type VerifyResult = { ok: true; pulses: number; checksum: string } | { ok: false; firstDifference: string };
+export type VerifyResult =
+  | { ok: true; pulses: number; checksum: string; preview: boolean }
+  | { ok: false; firstDifference: string };
 
 export function readScheduleFile(text: string): ReadResult {
   try {
@@ -58,7 +62,7 @@ function readJson(text: string): ReadResult {
     }
     trials.push({ trial: Number(tr.trial), onsetSamples: tr.onsetSamples as number[], onsetsS: tr.onsetsS as number[] });
   }
-  return { ok: true, file: { kind: 'json', manifest: doc.manifest, header: {}, trials } };
+  return { ok: true, file: { kind: 'json', preview: doc.preview === true, manifest: doc.manifest, header: {}, trials } };
 }
 
 function readCsv(text: string): ReadResult {
@@ -96,7 +100,8 @@ function readCsv(text: string): ReadResult {
     cur.onsetsS.push(parts[2]);
     rowTails[rowTails.length - 1].push(line.slice(tailStart + 1));
   }
-  return { ok: true, file: { kind: 'csv', manifest, header, trials, rowTails } };
+  const preview = lines[0] === `# ${PREVIEW_NOTICE}`;
+  return { ok: true, file: { kind: 'csv', preview, manifest, header, trials, rowTails } };
 }
 
 function strictInt(s: string | undefined): number | null {
@@ -147,6 +152,7 @@ function verifyFile(file: ScheduleFile): VerifyResult {
     seed: spec.seed,
     clockHz: String(spec.clockHz),
     trials: String(spec.trials),
+    pulses: String(m.pulseCount),
     checksum: String(m.checksum),
   };
   if (file.kind === 'csv') {
@@ -194,7 +200,7 @@ function verifyFile(file: ScheduleFile): VerifyResult {
   if (regenerated !== m.checksum) return fail(`manifest checksum ${String(m.checksum)}, regenerated ${regenerated}`);
   if (fromFile !== regenerated) return fail(`checksum of the file's pulses ${fromFile}, regenerated ${regenerated}`);
   if (m.pulseCount !== total) return fail(`manifest pulseCount ${String(m.pulseCount)}, regenerated ${total}`);
-  return { ok: true, pulses: total, checksum: regenerated };
+  return { ok: true, pulses: total, checksum: regenerated, preview: file.preview };
 }
 
 function decodeComment(v: string | undefined): string | undefined {

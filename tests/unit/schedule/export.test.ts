@@ -179,7 +179,8 @@ describe('verify', () => {
   it('accepts untouched CSV and JSON files, also with Windows line endings', () => {
     const a = verifySchedule(csv);
     const b = verifySchedule(json);
-    expect(a).toEqual({ ok: true, pulses: generateSchedule(optical).stats.realizedCount.total, checksum: buildManifest(optical).checksum });
+    expect(a).toEqual({ ok: true, pulses: generateSchedule(optical).stats.realizedCount.total, checksum: buildManifest(optical).checksum, preview: false });
+    expect(verifySchedule([...csvLines(optical, { preview: true })].join(''))).toMatchObject({ ok: true, preview: true });
     expect(b.ok).toBe(true);
     expect(verifySchedule(csv.replace(/\n/g, '\r\n')).ok).toBe(true);
   });
