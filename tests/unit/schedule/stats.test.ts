@@ -31,7 +31,8 @@ describe('statistics', () => {
     expect(keptRate(60, m)).toBeCloseTo(60 / (1 + 60 * (0.005 - 0.5e-6)), 3);
     const withRecovery = holdSpec({ rateHz: 60, durationS: 600, trials: 4, refractory: { absoluteMs: 5, recoveryMs: 12 }, clockHz: 1_000_000, seed: 'recovery-mc' });
     const s = generateSchedule(withRecovery);
-    // 4 × 600 s ≈ 70 000 pulses; count sd < 0.4 %; 1.5 % bounds the model's quadrature and the MC together.
+    // 4 × 600 s ≈ 70 000 pulses: the mean count's sd is < 0.4 %, so the 1.5 % band is > 3.7 sd
+    // (false failure < 2e-4) plus room for the model's quadrature and half-tick approximation.
     expect(Math.abs(s.stats.realizedCount.meanPerTrial / s.stats.expectedDeliveredCount - 1)).toBeLessThan(0.015);
   });
 
@@ -62,7 +63,8 @@ describe('statistics', () => {
     const heavy = generateSchedule(holdSpec({ rateHz: 100, durationS: 100, refractory: { absoluteMs: 10, recoveryMs: 0 } })).stats;
     expect(heavy.deliveredBelowEnvelope).toBe(true);
     expect(heavy.warnings[0]).toMatch(/^Refractoriness holds the delivered rate 50\.0 % below the drawn envelope/);
-    // 10 Hz with 1 ms refractory: 1 % shortfall; 20 trials × 200 s ⇒ realized within ±1 % (sd 0.2 %).
+    // 10 Hz with 1 ms refractory: 1 % shortfall; 20 trials × 200 s ⇒ realized mean sd 0.2 %,
+    // so crossing the 5 % line by chance would take a 20-sd draw (false failure ≈ 0).
     const light = generateSchedule(holdSpec({ rateHz: 10, durationS: 200, trials: 20, refractory: { absoluteMs: 1, recoveryMs: 0 } })).stats;
     expect(light.deliveredBelowEnvelope).toBe(false);
     expect(light.warnings).toEqual([]);
