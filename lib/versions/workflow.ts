@@ -158,8 +158,13 @@ export async function saveDraftSpec(member: Member, input: { versionId: string; 
   requirePermission(member, 'protocols.edit');
   const v = await loadVersion(member, input.versionId);
   await authorize(member, v, 'edit');
-  const clockHz = v.rigId ? v.rigClockHz : null;
-  const spec = canonicalSpec(specOrThrow(onRigClock(input.spec, clockHz)));
+  const spec = canonicalSpec(specOrThrow(input.spec));
+  // The clock is the rig's, set when the rig is chosen; a typed one would make another schedule.
+  if (v.rigClockHz !== null && spec.clockHz !== v.rigClockHz) {
+    throw badRequest(`The clock comes from the rig: ${v.rigName} runs at ${v.rigClockHz} Hz.`, [
+      { path: 'spec.clockHz', message: `must be ${v.rigClockHz} Hz, ${v.rigName}’s clock; choose another rig to change it` },
+    ]);
+  }
   if (modalityOf(spec) !== v.modality) {
     throw badRequest(`This protocol is ${v.modality}.`, [{ path: 'spec.pulse.unit', message: `use ${v.modality === 'optical' ? 'mW' : 'uA'} for an ${v.modality} protocol` }]);
   }
@@ -177,7 +182,7 @@ export async function saveDraftSpec(member: Member, input: { versionId: string; 
       ip: ctx.ip,
       details: { number: v.number, changed: changed.slice(0, 40), changedCount: changed.length },
     });
-    return { revision: row.revision, clockHz: spec.clockHz, clockChanged: clockHz !== null && (input.spec as { clockHz?: unknown })?.clockHz !== clockHz };
+    return { revision: row.revision };
   });
 }
 

@@ -158,10 +158,12 @@ describe('separation of duties', () => {
 });
 
 describe('drafts', () => {
-  it('take the clock from the rig whatever the editor sends, and follow a rig change', async () => {
+  it('keep the rig’s clock: a typed clock is refused, a rig change brings its own', async () => {
     const t = await makeReviewLab();
     const { versionId } = await makeDraft(t);
-    await saveDraftSpec(t.as.author, { versionId, spec: { ...CLEAN_SPEC, clockHz: 44_100 } }, CTX);
+    const err = await saveDraftSpec(t.as.author, { versionId, spec: { ...CLEAN_SPEC, clockHz: 44_100 } }, CTX).catch((e) => e);
+    expect(err.status).toBe(400);
+    expect(err.issues).toEqual([{ path: 'spec.clockHz', message: expect.stringContaining(`must be ${t.rig.clockHz} Hz`) }]);
     expect((await versionRow(versionId)).spec).toMatchObject({ clockHz: t.rig.clockHz });
     await setDraftRig(t.as.author, { versionId, rigId: t.rig2.id }, CTX);
     const row = await versionRow(versionId);
