@@ -190,9 +190,11 @@ export function sweepBlock(
     }
     let lo = -Infinity;
     let hi = Infinity;
-    if (ce <= segEnd || seg === lastSeg) {
+    // A position cs + u·L can round up to cs + L, which may differ from ce by an ulp.
+    const top = Math.max(ce, cs + cellS);
+    if (top < segEnd || seg === lastSeg) {
       const la = cs - segStart;
-      const lb = Math.min(ce, segEnd) - segStart;
+      const lb = Math.min(top, segEnd) - segStart;
       if (kind[seg] === 0) {
         const ra = c0[seg] + c1[seg] * (la / c2[seg]);
         const rb = c0[seg] + c1[seg] * (lb / c2[seg]);
