@@ -65,13 +65,16 @@ export async function listApprovedForRig({ labId, rigId }: { labId: string; rigI
     .orderBy(asc(protocols.name), asc(protocolVersions.number));
 }
 
-/** One approved version of the rig, with what its files carry; null when anything does not match. */
+/**
+ * One approved version of the rig, with what its file header carries; null when anything
+ * does not match. Without the spec: most downloads are answered from the cache of
+ * rendered files, and a long envelope is costly to fetch and parse.
+ */
 export async function getApprovedForRig({ labId, rigId, versionId }: { labId: string; rigId: string; versionId: string }) {
   const [row] = await db
     .select({
       id: protocolVersions.id,
       number: protocolVersions.number,
-      spec: protocolVersions.spec,
       checksum: protocolVersions.approvedChecksum,
       decidedAt: protocolVersions.decidedAt,
       protocol: protocols.name,
@@ -87,3 +90,13 @@ export async function getApprovedForRig({ labId, rigId, versionId }: { labId: st
 }
 
 export type ApprovedVersion = NonNullable<Awaited<ReturnType<typeof getApprovedForRig>>>;
+
+/** The stored spec of a version of the lab (for rendering a file the cache does not hold). */
+export async function getVersionSpec({ labId, versionId }: { labId: string; versionId: string }): Promise<unknown> {
+  const [row] = await db
+    .select({ spec: protocolVersions.spec })
+    .from(protocolVersions)
+    .where(and(eq(protocolVersions.labId, labId), eq(protocolVersions.id, versionId)))
+    .limit(1);
+  return row?.spec ?? null;
+}

@@ -34,7 +34,7 @@ export async function exportVersionFile(actor: ExportActor, request: Request, ve
     });
 
   if (v.status === 'approved' && v.approvedChecksum) {
-    const plan = planApprovedFile(request, { ...v, checksum: v.approvedChecksum }, format, 'Cookie');
+    const plan = planApprovedFile(request, { ...v, checksum: v.approvedChecksum }, format, 'Cookie', async () => v.spec);
     await audit(false, v.approvedChecksum, plan.fileName);
     return plan.respond();
   }

@@ -85,16 +85,25 @@ export function byteStream(
 
 export type ScheduleBody = { body: Uint8Array | ReadableStream<Uint8Array>; length: number | null; fromCache: boolean };
 
+/** The cached bytes of a file, or null. */
+export function fromCache(key: string, cache: ByteLru = scheduleCache): ScheduleBody | null {
+  const hit = cache.get(key);
+  return hit ? { body: hit, length: hit.byteLength, fromCache: true } : null;
+}
+
+/** A stream of a freshly rendered file that fills the cache when it completes. */
+export function renderIntoCache(key: string, chunks: Generator<string, void, undefined>, cache: ByteLru = scheduleCache): ScheduleBody {
+  const body = byteStream(chunks, { limit: cache.maxEntryBytes, done: (bytes) => cache.set(key, bytes) });
+  return { body, length: null, fromCache: false };
+}
+
 /** Cached bytes when present; otherwise a stream that fills the cache when it completes. */
 export function cachedScheduleBody(
   key: string,
   render: () => Generator<string, void, undefined>,
   cache: ByteLru = scheduleCache,
 ): ScheduleBody {
-  const hit = cache.get(key);
-  if (hit) return { body: hit, length: hit.byteLength, fromCache: true };
-  const body = byteStream(render(), { limit: cache.maxEntryBytes, done: (bytes) => cache.set(key, bytes) });
-  return { body, length: null, fromCache: false };
+  return fromCache(key, cache) ?? renderIntoCache(key, render(), cache);
 }
 
 export function cacheKey(versionId: string, checksum: string, format: ScheduleFormat): string {

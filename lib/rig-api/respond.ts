@@ -3,7 +3,7 @@
  * route so that an approved version gives the same bytes and headers through both.
  */
 import type { ScheduleMeta, Spec } from '@/lib/schedule';
-import { byteStream, cacheKey, cachedScheduleBody, scheduleChunks, storedSpec } from './render';
+import { byteStream, cacheKey, fromCache, renderIntoCache, scheduleChunks, storedSpec } from './render';
 import {
   MEDIA_TYPES,
   contentDisposition,
@@ -16,7 +16,6 @@ import {
 export type ApprovedFile = {
   id: string;
   number: number;
-  spec: unknown;
   checksum: string;
   decidedAt: Date | null;
   protocol: string;
@@ -40,10 +39,19 @@ export function approvedMeta(v: ApprovedFile): ScheduleMeta {
 // and only the requester may keep a copy — it was fetched with a credential.
 const CACHE_CONTROL = 'private, no-cache';
 
-export type FilePlan = { notModified: boolean; etag: string; fileName: string; respond: () => Response };
+export type FilePlan = { notModified: boolean; etag: string; fileName: string; respond: () => Promise<Response> };
 
-/** Decides 200 or 304 first, so the caller can audit what happened before responding. */
-export function planApprovedFile(request: Request, v: ApprovedFile, format: ScheduleFormat, vary: string): FilePlan {
+/**
+ * Decides 200 or 304 first, so the caller can audit what happened before responding.
+ * `loadSpec` is called only when the cache does not hold the rendered file.
+ */
+export function planApprovedFile(
+  request: Request,
+  v: ApprovedFile,
+  format: ScheduleFormat,
+  vary: string,
+  loadSpec: () => Promise<unknown>,
+): FilePlan {
   const etag = entityTag(v.checksum);
   const fileName = scheduleFileName({ protocol: v.protocol, version: v.number, checksum: v.checksum, format });
   const common = { ETag: etag, 'Cache-Control': CACHE_CONTROL, Vary: vary };
@@ -52,7 +60,7 @@ export function planApprovedFile(request: Request, v: ApprovedFile, format: Sche
     notModified,
     etag,
     fileName,
-    respond() {
+    async respond() {
       if (notModified) return new Response(null, { status: 304, headers: common });
       const headers: Record<string, string> = {
         ...common,
@@ -61,8 +69,9 @@ export function planApprovedFile(request: Request, v: ApprovedFile, format: Sche
         'X-Content-Type-Options': 'nosniff',
       };
       if (request.method === 'HEAD') return new Response(null, { status: 200, headers });
-      // The spec is parsed only on a cache miss: a long envelope is costly to validate.
-      const file = cachedScheduleBody(cacheKey(v.id, v.checksum, format), () => scheduleChunks(storedSpec(v.spec), approvedMeta(v), format));
+      const key = cacheKey(v.id, v.checksum, format);
+      const file =
+        fromCache(key) ?? renderIntoCache(key, scheduleChunks(storedSpec(await loadSpec()), approvedMeta(v), format));
       if (file.length !== null) headers['Content-Length'] = String(file.length);
       return new Response(file.body as BodyInit, { status: 200, headers });
     },

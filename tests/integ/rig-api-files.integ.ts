@@ -94,7 +94,7 @@ describe('downloaded CSV', () => {
     // Electrical rows carry width, amplitude with unit, both phase widths, gap and polarity.
     expect(rows[0]!.slice(4, 10)).toEqual(['0.45', '60', 'uA', '200', '50', 'cathodic']);
 
-    expect(verifySchedule(text)).toEqual({ ok: true, pulses: rows.length, checksum: s.v.checksum });
+    expect(verifySchedule(text)).toEqual({ ok: true, pulses: rows.length, checksum: s.v.checksum, preview: false });
     const cli = runCli(tempFile('approved.csv', text));
     expect(cli.status, cli.stderr).toBe(0);
     const tampered = text.replace(/\n0,0,([^,]+),(\d+),/, (_m, s1: string, n: string) => `\n0,0,${s1},${Number(n) + 1},`);
@@ -207,6 +207,7 @@ describe('exports from the app', () => {
     const text = await csv.text();
     expect(text.split('\n')[0]).toBe(`# ${PREVIEW_NOTICE}`);
     expect(text).toContain('# status: draft');
+    expect(verifySchedule(text)).toMatchObject({ ok: true, preview: true });
 
     const json = JSON.parse(await (await exportVersionFile(exp, exportReq(draft.version.id, 'json'), draft.version.id, 'json')).text()) as Record<string, unknown>;
     expect(json.preview).toBe(true);

@@ -1,6 +1,6 @@
 import { db } from '@/db/client';
 import { recordAudit } from '@/db/queries/audit';
-import { getApprovedForRig } from '@/db/queries/rig-api';
+import { getApprovedForRig, getVersionSpec } from '@/db/queries/rig-api';
 import { notFound } from '@/lib/http/errors';
 import { authenticateRig } from '@/lib/rig-api/auth';
 import { parseVersionRef, negotiate } from '@/lib/rig-api/format';
@@ -27,7 +27,13 @@ export const GET = rigRoute(async (request: Request, ctx: { params: Promise<{ id
   const version = await getApprovedForRig({ labId: auth.labId, rigId: auth.rig.id, versionId: ref.id });
   if (!version || !version.checksum) throw notFound(NOT_HERE);
 
-  const plan = planApprovedFile(request, { ...version, checksum: version.checksum }, format, ref.ext ? 'Authorization' : 'Accept, Authorization');
+  const plan = planApprovedFile(
+    request,
+    { ...version, checksum: version.checksum },
+    format,
+    ref.ext ? 'Authorization' : 'Accept, Authorization',
+    () => getVersionSpec({ labId: auth.labId, versionId: version.id }),
+  );
   if (request.method !== 'HEAD') {
     await recordAudit(db, {
       labId: auth.labId,
