@@ -3,12 +3,14 @@
 import { useRouter } from 'next/navigation';
 import { useState, useTransition } from 'react';
 import { setDraftRigAction } from '../../../actions';
+import { useDraftRevision } from './DraftRevision';
 
 type Rig = { id: string; name: string; clockHz: number; archived: boolean };
 
 /** Which of the protocol's rigs this draft runs on; the spec takes that rig's clock. */
 export function RigPicker({ versionId, rigId, rigs }: { versionId: string; rigId: string | null; rigs: Rig[] }) {
   const router = useRouter();
+  const { setRevision } = useDraftRevision(0);
   const [value, setValue] = useState(rigId ?? '');
   const [error, setError] = useState<string | null>(null);
   const [pending, start] = useTransition();
@@ -22,8 +24,10 @@ export function RigPicker({ versionId, rigId, rigs }: { versionId: string; rigId
         start(async () => {
           setError(null);
           const res = await setDraftRigAction({ versionId, rigId: value });
-          if (res.ok) router.refresh();
-          else setError(res.fieldErrors[0]?.message ?? res.message);
+          if (res.ok) {
+            setRevision(res.data.revision);
+            router.refresh();
+          } else setError(res.fieldErrors[0]?.message ?? res.message);
         });
       }}
     >

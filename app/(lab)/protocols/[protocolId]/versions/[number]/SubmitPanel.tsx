@@ -4,6 +4,7 @@ import { useRouter } from 'next/navigation';
 import { useState, useTransition } from 'react';
 import type { FieldIssue } from '@/lib/http/errors';
 import { submitVersionAction } from '../../../actions';
+import { useDraftRevision } from './DraftRevision';
 
 type Props = {
   versionId: string;
@@ -17,6 +18,7 @@ type Props = {
 /** Submit for review: blocked by hard limits, and asking for a written justification at warning level. */
 export function SubmitPanel({ versionId, revision, canSubmit, needsJustification, blockers }: Props) {
   const router = useRouter();
+  const { revision: current } = useDraftRevision(revision);
   const [justification, setJustification] = useState('');
   const [result, setResult] = useState<{ message: string; issues: FieldIssue[] } | null>(null);
   const [pending, start] = useTransition();
@@ -39,14 +41,14 @@ export function SubmitPanel({ versionId, revision, canSubmit, needsJustification
             e.preventDefault();
             start(async () => {
               setResult(null);
-              const res = await submitVersionAction({ versionId, revision, justification });
+              const res = await submitVersionAction({ versionId, revision: current, justification });
               if (res.ok) router.refresh();
               else setResult({ message: res.message, issues: res.fieldErrors });
             });
           }}
         >
           <p className="text-sm text-ink-muted">
-            Submitting freezes this version and asks the lab’s safety officers to review it. The schedule’s checksum is recorded now.
+            Submitting freezes this version as last saved and asks the lab’s safety officers to review it. The schedule’s checksum is recorded now.
           </p>
           {needsJustification ? (
             <div>

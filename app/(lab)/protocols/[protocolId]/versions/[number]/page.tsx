@@ -14,6 +14,7 @@ import { STATUS_LABELS } from '@/lib/versions/status';
 import { loadVersionView } from '@/lib/versions/view';
 import { CopyButton } from './CopyButton';
 import { DraftEditor } from './DraftEditor';
+import { DraftRevisionProvider } from './DraftRevision';
 import { RigPicker } from './RigPicker';
 import { SubmitPanel } from './SubmitPanel';
 import { WithdrawForm } from './WithdrawForm';
@@ -39,6 +40,7 @@ export default async function VersionPage({ params }: PageProps<'/protocols/[pro
   if (sheet?.ok) for (const r of sheet.sheet.rows.filter((x) => x.status === 'fail')) blockers.push(`${r.label}: ${r.help}`);
 
   return (
+    <DraftRevisionProvider key={version.id} initial={version.revision}>
     <div className="space-y-6">
       <div>
         <Link href={`/protocols/${protocolId}`} className="text-sm text-ink-muted hover:text-ink">← {version.protocolName}</Link>
@@ -143,5 +145,6 @@ export default async function VersionPage({ params }: PageProps<'/protocols/[pro
         <ExportPanel versionId={version.id} status={version.status} modality={version.modality} />
       ) : null}
     </div>
+    </DraftRevisionProvider>
   );
 }
