@@ -192,7 +192,9 @@ export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
 
   const onPointerDown = (e: React.PointerEvent<HTMLDivElement>) => {
     if (e.button !== 0 && e.button !== 1) return;
-    e.currentTarget.focus();
+    // Focus for the keys, without scrolling: a canvas partly off screen would jump under the
+    // pointer between press and release, and the click would land somewhere else.
+    e.currentTarget.focus({ preventScroll: true });
     e.currentTarget.setPointerCapture(e.pointerId);
     const p = local(e);
     const vp = vpRef.current;
@@ -250,7 +252,7 @@ export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
     schedule(p);
   };
 
-  const finish = (e: React.PointerEvent<HTMLDivElement>, cancelled: boolean) => {
+  const finish = (cancelled: boolean) => {
     const g = gesture.current;
     gesture.current = null;
     if (frame.current !== null) {
@@ -267,7 +269,6 @@ export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
     if (!g) return;
     const vp = vpRef.current;
     const r = rectRef.current;
-    const p = local(e);
     if (g.kind === 'drag') {
       if (!cancelled && g.current !== g.anchor) {
         dragCount.current++;
@@ -283,7 +284,8 @@ export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
       latest.current.onSelect(next);
       announce(next);
     } else if (g.kind === 'press-empty' && !cancelled && !readOnly && !g.additive) {
-      const res = addPoint(latest.current.doc, xToTime(vp, r, p.x), yToHz(vp, r, p.y), latest.current.grid);
+      // Where the button went down: that is the point the user aimed at.
+      const res = addPoint(latest.current.doc, xToTime(vp, r, g.x), yToHz(vp, r, g.y), latest.current.grid);
       if (res.added) {
         latest.current.onEdit(res.doc);
         announce(res.doc, 'Added. ');
@@ -408,8 +410,8 @@ export function EnvelopeCanvas(props: EnvelopeCanvasProps) {
         style={{ height, cursor: 'crosshair' }}
         onPointerDown={onPointerDown}
         onPointerMove={onPointerMove}
-        onPointerUp={(e) => finish(e, false)}
-        onPointerCancel={(e) => finish(e, true)}
+        onPointerUp={() => finish(false)}
+        onPointerCancel={() => finish(true)}
         onKeyDown={onKeyDown}
         onKeyUp={onKeyUp}
       >
