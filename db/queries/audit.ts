@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, gte, ilike, lt, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, ilike, lt, lte, max, sql, type SQL } from 'drizzle-orm';
 import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
 import { db } from '../client';
 import { auditLog } from '../schema';
@@ -33,8 +33,9 @@ export async function recordAudit(writer: Writer, e: AuditEntry): Promise<void> 
   });
 }
 
-// Reading the log: always one lab, newest first by append order (the id), filtered by
-// the audit page's search parameters (lib/audit/filters.ts).
+// Reading the log: always one lab, newest first (by time, then by append order for
+// entries of the same instant), filtered by the audit page's search parameters
+// (lib/audit/filters.ts).
 
 export type AuditQuery = {
   labId: string;
@@ -53,7 +54,9 @@ function likeLiteral(s: string): string {
   return `%${s.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
-function auditWhere(q: AuditQuery, beforeId?: number): SQL | undefined {
+type Cursor = { at: string; id: number };
+
+function auditWhere(q: AuditQuery, after?: Cursor, upToId?: number): SQL | undefined {
   return and(
     eq(auditLog.labId, q.labId),
     q.action ? eq(auditLog.action, q.action) : undefined,
@@ -61,9 +64,14 @@ function auditWhere(q: AuditQuery, beforeId?: number): SQL | undefined {
     q.subjectType ? eq(auditLog.subjectType, q.subjectType) : undefined,
     q.since ? gte(auditLog.at, q.since) : undefined,
     q.before ? lt(auditLog.at, q.before) : undefined,
-    beforeId !== undefined ? lt(auditLog.id, beforeId) : undefined,
+    upToId !== undefined ? lte(auditLog.id, upToId) : undefined,
+    // Keyset on (at, id), the display order. The cursor's time travels as PostgreSQL's
+    // own text so no microseconds are lost to a JavaScript Date.
+    after ? sql`(${auditLog.at}, ${auditLog.id}) < (${after.at}::timestamptz, ${after.id})` : undefined,
   );
 }
+
+const newestFirst = [desc(auditLog.at), desc(auditLog.id)];
 
 /** One page of entries, newest first, and the total that match. */
 export async function listAuditEntries(q: AuditQuery & { limit: number; offset: number }) {
@@ -72,7 +80,7 @@ export async function listAuditEntries(q: AuditQuery & { limit: number; offset: 
       .select()
       .from(auditLog)
       .where(auditWhere(q))
-      .orderBy(desc(auditLog.id))
+      .orderBy(...newestFirst)
       .limit(q.limit)
       .offset(q.offset),
     db.select({ n: count() }).from(auditLog).where(auditWhere(q)),
@@ -81,24 +89,31 @@ export async function listAuditEntries(q: AuditQuery & { limit: number; offset: 
 }
 
 /**
- * Every matching entry, newest first, in batches (keyset on the id), so an export of a
- * long log never holds it all in memory.
+ * Every matching entry, newest first, in batches (keyset on time and id), so an export
+ * of a long log never holds it all in memory. `upToId` fixes a snapshot: the log is
+ * append-only, so entries at or below it never change while the export runs.
  */
 export async function* iterateAuditEntries(q: AuditQuery, { upToId, batchSize = 500 }: { upToId?: number | null; batchSize?: number } = {}) {
   if (upToId === null) return;
-  let beforeId: number | undefined = upToId === undefined ? undefined : upToId + 1;
+  let after: Cursor | undefined;
   for (;;) {
-    const rows = await db.select().from(auditLog).where(auditWhere(q, beforeId)).orderBy(desc(auditLog.id)).limit(batchSize);
+    const rows = await db
+      .select({ entry: auditLog, cursorAt: sql<string>`${auditLog.at}::text` })
+      .from(auditLog)
+      .where(auditWhere(q, after, upToId))
+      .orderBy(...newestFirst)
+      .limit(batchSize);
     if (rows.length === 0) return;
-    yield rows;
+    yield rows.map((r) => r.entry);
     if (rows.length < batchSize) return;
-    beforeId = rows[rows.length - 1]!.id;
+    const last = rows[rows.length - 1]!;
+    after = { at: last.cursorAt, id: last.entry.id };
   }
 }
 
-/** The id of the lab's newest entry (null for an empty log): a snapshot point for exports. */
+/** The id of the lab's last appended entry (null for an empty log): a snapshot point for exports. */
 export async function latestAuditId({ labId }: { labId: string }): Promise<number | null> {
-  const [row] = await db.select({ id: auditLog.id }).from(auditLog).where(eq(auditLog.labId, labId)).orderBy(desc(auditLog.id)).limit(1);
+  const [row] = await db.select({ id: max(auditLog.id) }).from(auditLog).where(eq(auditLog.labId, labId));
   return row?.id ?? null;
 }
 

@@ -99,6 +99,20 @@ describe('audit log queries', () => {
     expect(await latestAuditId({ labId: (await makeLab()).lab.id })).toBeNull();
   });
 
+  it('orders by time even when entries were appended out of order, and the export’s keyset loses nothing to microseconds', async () => {
+    const { lab } = await makeLab();
+    // Appended in this order; times differ by a microsecond or not at all.
+    await entry(lab.id, '2031-06-01T10:00:00.000002Z', 'b', 'x', 't');
+    await entry(lab.id, '2031-06-01T10:00:00.000001Z', 'a', 'x', 't');
+    await entry(lab.id, '2031-06-01T10:00:00.000002Z', 'c', 'x', 't');
+    await entry(lab.id, '2031-06-01T10:00:00.000003Z', 'd', 'x', 't');
+    const page = await listAuditEntries({ labId: lab.id, limit: 10, offset: 0 });
+    expect(page.rows.map((r) => r.action)).toEqual(['d', 'c', 'b', 'a']);
+    const streamed: string[] = [];
+    for await (const batch of iterateAuditEntries({ labId: lab.id }, { batchSize: 1 })) streamed.push(...batch.map((r) => r.action));
+    expect(streamed).toEqual(['d', 'c', 'b', 'a']);
+  });
+
   it('offers filter choices from the lab’s own log only', async () => {
     const { labId, otherLabId } = await seedLog();
     await entry(otherLabId, '2031-04-30T12:00:00Z', 'only.elsewhere', 'stranger@else.test', 'elsewhere');
