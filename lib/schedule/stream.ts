@@ -1,6 +1,6 @@
 /**
  * Streaming forms of the engine: pulses in time order, trial by trial, one 60 s block
- * in memory at a time. Exporters use `runTrial` (typed arrays, no per-pulse objects);
+ * in memory at a time. Exporters use `trialBlocks` (typed arrays, no per-pulse objects);
  * `streamPulses` is the friendly iterator on top of it.
  */
 import { compileSpec, type Compiled } from './compile';
