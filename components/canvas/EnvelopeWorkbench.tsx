@@ -107,6 +107,8 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
     [checkedDoc, checkedSpec, blockers],
   );
   const preview = usePreview({ spec: checkedSpec, valid: blockers.length === 0, trials: previewTrials, url: previewUrl });
+  // Stable, so the memoized preview panel skips renders that change only the editor.
+  const previewError = useMemo(() => (preview.error ? { message: preview.error.message, errors: preview.error.errors } : null), [preview.error]);
 
   const edit = useCallback((next: EditorDoc, tag?: string) => setHistory((h) => commit(h, next, tag)), []);
   const selectOnly = useCallback((next: EditorDoc) => setHistory((h) => setSelection(h, next.selection)), []);
@@ -249,7 +251,7 @@ function Workbench({ initialSpec, readOnly, onSave, previewUrl = '/api/preview',
           loading={preview.loading}
           stale={preview.stale}
           blocked={preview.blocked}
-          error={preview.error ? { message: preview.error.message, errors: preview.error.errors } : null}
+          error={previewError}
           seed={settings.seed}
           trials={previewTrials}
           maxTrials={PREVIEW_MAX_TRIALS}

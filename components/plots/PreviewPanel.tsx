@@ -1,4 +1,5 @@
 'use client';
+import { memo } from 'react';
 import type { SpecError } from '@/lib/schedule/spec';
 import type { PreviewResponse } from '@/lib/preview/types';
 import { CountsPerTrial } from './CountsPerTrial';
@@ -21,8 +22,12 @@ export interface PreviewPanelProps {
   onTrialsChange: (n: number) => void;
 }
 
-/** The live preview: a few trials from the engine with the seed in use, as plots and numbers. */
-export function PreviewPanel(p: PreviewPanelProps) {
+/**
+ * The live preview: a few trials from the engine with the seed in use, as plots and numbers.
+ * Memoized: selecting a point re-renders the workbench, and redrawing a raster of thousands
+ * of pulses for that would stall the press by tens of milliseconds.
+ */
+export const PreviewPanel = memo(function PreviewPanel(p: PreviewPanelProps) {
   const { data } = p;
   return (
     <section aria-label="Preview" aria-busy={p.loading}>
@@ -97,4 +102,4 @@ export function PreviewPanel(p: PreviewPanelProps) {
       ) : null}
     </section>
   );
-}
+});
