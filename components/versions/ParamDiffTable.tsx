@@ -22,7 +22,7 @@ export function ParamDiffTable({ rows, before, after }: { rows: DiffRow[]; befor
         <tbody>
           {rows.map((r) => (
             <tr key={r.path}>
-              <th scope="row" className="font-mono text-xs font-normal">{r.path}</th>
+              <th scope="row" className="font-mono text-xs font-normal normal-case tracking-normal text-ink">{r.path}</th>
               <td className="font-mono text-xs">{r.before ?? <span className="text-ink-muted">—</span>}</td>
               <td className="font-mono text-xs font-semibold">{r.after ?? <span className="text-ink-muted">—</span>}</td>
               <td className="text-xs text-ink-muted">{CHANGE_WORDS[r.change]}</td>
