@@ -5,6 +5,7 @@ import { labs, limitProfiles, rigs, users } from '../schema';
 import { recordAudit } from './audit';
 import { fromLimitColumns, toLimitColumns } from './limit-profile-shape';
 import { limitProfileSchema, type LimitProfile } from '@/lib/safety';
+import { describeChanges } from '@/lib/audit/diff';
 import { badRequest, conflict, notFound, zodIssues } from '@/lib/http/errors';
 import type { Modality } from '@/lib/schedule/spec';
 
@@ -23,7 +24,8 @@ export type StoredLimitProfile = {
   profile: LimitProfile;
 };
 
-export type Actor = { userId: string; label: string };
+/** Who made a change and from where (the client address, for the audit log). */
+export type Actor = { userId: string; label: string; ip?: string | null };
 
 type Row = typeof limitProfiles.$inferSelect & { rigName: string | null; updatedByEmail: string | null };
 
@@ -177,6 +179,7 @@ export async function createLimitProfile({
     await recordAudit(tx, {
       labId,
       actor: { userId: actor.userId, label: actor.label },
+      ip: actor.ip ?? null,
       action: 'limits.created',
       subjectType: 'limit_profile',
       subjectId: row!.id,
@@ -217,6 +220,8 @@ export async function updateLimitProfile({
     if (expectedUpdatedAt && before.updatedAt.getTime() !== expectedUpdatedAt.getTime()) {
       throw conflict('Someone saved this profile after you opened it. Reload to see their limits, then edit again.');
     }
+    const previous = fromRow(before).profile;
+    const normalized = { ...profile, rigId: profile.rigId ?? null };
     if (before.modality !== profile.modality) {
       throw badRequest('A profile keeps its modality; create a new profile instead.', [
         { path: 'modality', message: `this profile is ${before.modality}` },
@@ -230,10 +235,11 @@ export async function updateLimitProfile({
     await recordAudit(tx, {
       labId,
       actor: { userId: actor.userId, label: actor.label },
+      ip: actor.ip ?? null,
       action: 'limits.updated',
       subjectType: 'limit_profile',
       subjectId: id,
-      details: { before: fromRow(before).profile, after: profile },
+      details: { changes: describeChanges(previous, normalized), before: previous, after: normalized },
     });
   });
   return (await getLimitProfile({ labId, id }))!;
@@ -249,6 +255,7 @@ export async function deleteLimitProfile({ labId, id, actor }: { labId: string; 
     await recordAudit(tx, {
       labId,
       actor: { userId: actor.userId, label: actor.label },
+      ip: actor.ip ?? null,
       action: 'limits.deleted',
       subjectType: 'limit_profile',
       subjectId: id,

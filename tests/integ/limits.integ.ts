@@ -52,7 +52,7 @@ describe('limit profiles', () => {
       labId: a.lab.id,
       id: created.id,
       input: opticalProfile({ name: 'Lab optical v2', limits: { maxRateHz: { hard: 60 } } }),
-      actor: actorOf(a.people.admin!),
+      actor: { ...actorOf(a.people.admin!), ip: '10.1.2.3' },
       expectedUpdatedAt: created.updatedAt,
     });
     expect(updated.profile.name).toBe('Lab optical v2');
@@ -72,7 +72,16 @@ describe('limit profiles', () => {
     expect(audit.map((r) => r.action)).toEqual(['limits.created', 'limits.updated', 'limits.deleted']);
     expect(audit.every((r) => r.subjectType === 'limit_profile' && r.subjectId === created.id)).toBe(true);
     expect(audit[1]!.actorLabel).toBe(a.people.admin!.email);
-    expect((audit[1]!.details as { before: { name: string }; after: { name: string } }).before.name).toBe('Lab optical');
+    expect(audit[1]!.ip).toBe('10.1.2.3');
+    const details = audit[1]!.details as { changes: string[]; before: { name: string }; after: { name: string } };
+    expect(details.before.name).toBe('Lab optical');
+    expect(details.changes).toEqual([
+      'limits.maxIrradianceMwPerMm2: {"hard":1000,"warn":400} → (not set)',
+      'limits.maxRateHz.hard: 100 → 60',
+      'limits.maxRateHz.warn: 40 → (not set)',
+      'name: "Lab optical" → "Lab optical v2"',
+      'whenUnknown: "fail" → (not set)',
+    ]);
     expect(await db.select().from(auditLog).where(eq(auditLog.labId, b.lab.id))).toEqual([]);
   });
 

@@ -62,7 +62,7 @@ export default async function AuditPage({ searchParams }: Props) {
       <div className="mt-4 flex flex-wrap items-center justify-between gap-3 text-sm">
         <p className="text-ink-muted" data-testid="audit-count" aria-live="polite">
           {total === 1 ? '1 entry' : `${total.toLocaleString('en')} entries`}
-          {filtered ? ' match these filters' : ''}
+          {filtered ? (total === 1 ? ' matches these filters' : ' match these filters') : ''}
           {total > PAGE_SIZE ? ` · page ${f.page} of ${pages}` : ''}
         </p>
         {total > 0 ? (

@@ -1,9 +1,11 @@
 'use server';
 
 import { revalidatePath } from 'next/cache';
+import { headers } from 'next/headers';
 import { z } from 'zod';
 import { createLimitProfile, deleteLimitProfile, updateLimitProfile } from '@/db/queries/limit-profiles';
 import { memberAction } from '@/lib/auth/guard';
+import { clientAddress } from '@/lib/auth/rate-limit';
 import type { Member } from '@/lib/auth/session';
 import { limitProfileSchema } from '@/lib/safety';
 
@@ -11,10 +13,12 @@ import { limitProfileSchema } from '@/lib/safety';
 // memberAction before it reads its input; the query functions write the audit row in
 // the same transaction as the change.
 
-const actor = (m: Member) => ({ userId: m.user.id, label: m.user.email });
+async function actor(m: Member) {
+  return { userId: m.user.id, label: m.user.email, ip: clientAddress(await headers()) };
+}
 
 export const createLimitProfileAction = memberAction('limits.manage', limitProfileSchema, async (input, member) => {
-  const saved = await createLimitProfile({ labId: member.lab.id, input, actor: actor(member) });
+  const saved = await createLimitProfile({ labId: member.lab.id, input, actor: await actor(member) });
   revalidatePath('/limits');
   return { id: saved.id };
 });
@@ -31,7 +35,7 @@ export const updateLimitProfileAction = memberAction('limits.manage', updateSche
     labId: member.lab.id,
     id: input.id,
     input: input.profile,
-    actor: actor(member),
+    actor: await actor(member),
     expectedUpdatedAt: new Date(input.loadedAt),
   });
   revalidatePath('/limits');
@@ -39,7 +43,7 @@ export const updateLimitProfileAction = memberAction('limits.manage', updateSche
 });
 
 export const deleteLimitProfileAction = memberAction('limits.manage', z.object({ id: z.uuid() }), async (input, member) => {
-  await deleteLimitProfile({ labId: member.lab.id, id: input.id, actor: actor(member) });
+  await deleteLimitProfile({ labId: member.lab.id, id: input.id, actor: await actor(member) });
   revalidatePath('/limits');
   return undefined;
 });
