@@ -131,3 +131,38 @@ test('an officer reviewing a version they submitted themselves sees why they can
   await expect(page.getByTestId('own-version')).toContainText('another safety officer of the lab must decide it');
   await expect(page.getByRole('form', { name: 'Decision' })).toHaveCount(0);
 });
+
+test('two decisions on one version: the later one is refused with a clear message', async ({ page, context }) => {
+  test.setTimeout(120_000);
+  const name = `Race ${Date.now()}`;
+  await signInWithPassword(page, DEMO.experimenter);
+  await page.goto('/protocols/new');
+  const form = page.getByRole('form', { name: 'New protocol' });
+  await form.getByLabel('Name').fill(name);
+  await form.getByLabel(/Bench 2 — blue light/).check();
+  await page.getByRole('button', { name: 'Create protocol' }).click();
+  await expect(page).toHaveURL(/\/versions\/1$/);
+  const submit = page.getByRole('form', { name: 'Submit for review' });
+  await submit.getByLabel('Justification for the warnings').fill('Needed for the test.');
+  await submit.getByRole('button', { name: 'Submit for review' }).click();
+  await expect(badge(page)).toHaveText('In review');
+  await signOut(page);
+
+  // The officer has the review open twice (two tabs, or two officers): both show "in review".
+  await signInWithPassword(page, DEMO.officer);
+  await page.goto('/reviews');
+  await page.getByTestId('review-queue').getByRole('row').filter({ hasText: name }).getByRole('link', { name }).click();
+  await expect(page.getByRole('form', { name: 'Decision' })).toBeVisible();
+  const other = await context.newPage();
+  await other.goto(page.url());
+  await other.getByRole('form', { name: 'Decision' }).getByRole('button', { name: 'Approve this version' }).click();
+  await expect(badge(other)).toHaveText('Approved');
+
+  const stale = page.getByRole('form', { name: 'Decision' });
+  await stale.getByLabel('Return with comments').check();
+  await stale.getByLabel('What needs to change').fill('Too late.');
+  await stale.getByRole('button', { name: 'Return to the author' }).click();
+  await expect(stale.getByRole('alert')).toHaveText('Someone else acted on this version first; reload to see its state.');
+  await page.reload();
+  await expect(badge(page)).toHaveText('Approved');
+});
