@@ -148,7 +148,7 @@ export function LimitProfileForm({ modality, rigs, existing }: Props) {
               </LimitRow>
             ))}
             <tr>
-              <th scope="row" className="text-left text-sm font-normal normal-case tracking-normal text-ink">
+              <th scope="row" className="border-line/60 text-left text-sm font-normal normal-case tracking-normal text-ink">
                 <div className="font-medium">{WINDOW_FIELD.label}</div>
                 <div className="mt-1 flex items-center gap-2 text-xs text-ink-muted">
                   <span>window of</span>
@@ -187,7 +187,7 @@ export function LimitProfileForm({ modality, rigs, existing }: Props) {
 function LimitRow({ field, children }: { field: LimitField; children: React.ReactNode }) {
   return (
     <tr>
-      <th scope="row" className="text-left text-sm font-normal normal-case tracking-normal text-ink">
+      <th scope="row" className="border-line/60 text-left text-sm font-normal normal-case tracking-normal text-ink">
         <div className="font-medium">{field.label}</div>
         {field.hint ? <div className="mt-0.5 max-w-md text-xs text-ink-muted">{field.hint}</div> : null}
       </th>
