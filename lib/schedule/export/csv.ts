@@ -30,7 +30,7 @@ import { buildManifest, scanSchedule } from '../manifest';
 import type { Spec } from '../spec';
 import { trialBlocks } from '../stream';
 import { assertValid } from '../validate';
-import { ByteWriter, ascii, decimalPlan, writeSeconds } from './ascii';
+import { ByteWriter, ascii, decimalPlan, writeRows } from './ascii';
 import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type MetaValue, type ScheduleMeta } from './meta';
 
 export const CSV_COLUMNS = [
@@ -115,24 +115,10 @@ export function* csvRowBytes(spec: Spec, trials: readonly number[], channel?: st
   const plan = decimalPlan(clk);
   const suffix = ascii(rowSuffix(spec, channel) + '\n');
   const w = new ByteWriter();
-  // A row is at most: trial (4) + index (16) + seconds (~32) + sample (16) + 3 commas + suffix.
-  const rowMax = 72 + suffix.length;
   for (const trial of trials) {
     const prefix = ascii(`${trial},`);
     for (const { samples, length, firstIndex } of trialBlocks(c, trial)) {
-      w.ensure(length * rowMax);
-      for (let i = 0; i < length; i++) {
-        const s = samples[i];
-        w.buf.set(prefix, w.pos);
-        w.pos += prefix.length;
-        w.uint(firstIndex + i);
-        w.buf[w.pos++] = 44;
-        writeSeconds(w, s, clk, plan);
-        w.buf[w.pos++] = 44;
-        w.uint(s);
-        w.buf.set(suffix, w.pos);
-        w.pos += suffix.length;
-      }
+      writeRows(w, prefix, suffix, samples, length, firstIndex, clk, plan);
       yield w.take();
     }
   }

@@ -15,7 +15,7 @@ import {
 } from '../../../lib/schedule/index';
 import { aleaNext, blockAleaState, blockSeed } from '../../../lib/schedule/seeds';
 import { sha256Hex } from '../../../lib/schedule/sha256';
-import { ByteWriter, decimalPlan, writeSeconds } from '../../../lib/schedule/export/ascii';
+import { ByteWriter, ascii, decimalPlan, writeRows, writeSeconds } from '../../../lib/schedule/export/ascii';
 import fc from 'fast-check';
 
 const example = (name: string): Spec =>
@@ -107,6 +107,27 @@ describe('onset_s text', () => {
       writeSeconds(w, s, clk, decimalPlan(clk));
       expect(new TextDecoder().decode(w.take())).toBe(String(s / clk));
     }
+  });
+});
+
+describe('CSV row bytes', () => {
+  it('equal rows built with String() for every clock path (fast-check)', () => {
+    const clocks = [1, 1000, 10_000, 20_000, 30_000, 1_000_000, 100_000_000];
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...clocks),
+        fc.array(fc.double({ min: 0, max: 86_400, noNaN: true }), { minLength: 1, maxLength: 40 }),
+        fc.nat({ max: 1e8 }),
+        (clk, times, first) => {
+          const samples = Float64Array.from(times.map((t) => Math.floor(t * clk)));
+          const w = new ByteWriter(16);
+          writeRows(w, ascii('7,'), ascii(',x\n'), samples, samples.length, first, clk, decimalPlan(clk));
+          const want = [...samples].map((s, i) => `7,${first + i},${s / clk},${s},x\n`).join('');
+          expect(new TextDecoder().decode(w.take())).toBe(want);
+        },
+      ),
+      { numRuns: 400, seed: 8 },
+    );
   });
 });
 
