@@ -59,7 +59,7 @@ function rawUniformsPerSecond(): number {
   const rng = seedrandom.alea('raw');
   let acc = 0;
   for (let i = 0; i < 2e6; i++) acc += rng();
-  const n = 4e7;
+  const n = 2e7;
   const t0 = performance.now();
   for (let i = 0; i < n; i++) acc += rng();
   const dt = (performance.now() - t0) / 1000;
@@ -79,7 +79,7 @@ function arc4UniformsPerSecond(): number {
 }
 
 function engineCandidatesPerSecond(): { rate: number; seconds: number; durationS: number } {
-  const spec = benchSpec(1, 12);
+  const spec = benchSpec(1, 4);
   const c = compileSpec(spec);
   runTrial(c, 99, () => {}); // warm-up
   let candidates = 0;
@@ -92,7 +92,7 @@ function engineCandidatesPerSecond(): { rate: number; seconds: number; durationS
 /** The naive method: every 0.1 ms step draws one uniform and fires with probability ρ(t)·dt (same refractory rule). */
 function naiveSecondsPerTrialSecond(): number {
   const dt = 1e-4;
-  const durationS = 600;
+  const durationS = 200;
   const rng = seedrandom.alea('naive');
   const w = 2 * Math.PI * 0.05;
   let last = -Infinity;
@@ -162,10 +162,17 @@ const fmt = (x: number, d = 2) => x.toFixed(d);
 const mega = (x: number) => `${fmt(x / 1e6, 1)} M/s`;
 
 async function main() {
-  const raw = rawUniformsPerSecond();
+  // The machine is shared: interleave the measurements that form a ratio and keep each one's best of five.
+  let raw = 0;
+  let eng = { rate: 0, seconds: Infinity, durationS: 1 };
+  let naive = Infinity;
+  for (let rep = 0; rep < 5; rep++) {
+    raw = Math.max(raw, rawUniformsPerSecond());
+    const e = engineCandidatesPerSecond();
+    if (e.rate > eng.rate) eng = e;
+    naive = Math.min(naive, naiveSecondsPerTrialSecond());
+  }
   const arc4 = arc4UniformsPerSecond();
-  const eng = engineCandidatesPerSecond();
-  const naive = naiveSecondsPerTrialSecond();
   const engineSecPerTrialSec = eng.seconds / eng.durationS;
   const csv1 = csvInChild(1);
   const csv4 = csvInChild(4);
