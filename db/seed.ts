@@ -4,7 +4,7 @@
 import { drizzle } from 'drizzle-orm/postgres-js';
 import { and, eq } from 'drizzle-orm';
 import postgres from 'postgres';
-import { fileURLToPath } from 'node:url';
+import { runAsScript } from './cli';
 import * as schema from './schema';
 import { hashPassword } from '../lib/auth/password';
 import { DEMO } from './demo';
@@ -68,16 +68,4 @@ export async function seed(url: string): Promise<void> {
   }
 }
 
-if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
-  const url = process.env.DATABASE_URL;
-  if (!url) {
-    console.error('DATABASE_URL is not set');
-    process.exit(1);
-  }
-  seed(url)
-    .then(() => console.log('demo data ready'))
-    .catch((err: Error) => {
-      console.error(`seeding failed: ${err.message}`);
-      process.exit(1);
-    });
-}
+runAsScript(import.meta.url, 'seeding', seed, 'demo data ready');
