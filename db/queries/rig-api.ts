@@ -1,10 +1,22 @@
+/**
+ * Queries of the rig API. The ones on every request are prepared statements, built once
+ * per process on first use: building a Drizzle query with joins costs about ten times
+ * what PostgreSQL takes to run it (measured: ~2 ms against ~0.2 ms on this machine), and
+ * a rig download runs three of them.
+ */
 import { and, asc, eq, isNull, lt, or, sql } from 'drizzle-orm';
 import { db } from '../client';
-import { protocolVersions, protocols, rigTokens, rigs, users } from '../schema';
+import { auditLog, protocolVersions, protocols, rigTokens, rigs, users } from '../schema';
+import type { AuditEntry } from './audit';
 
-/** The token with its rig, by the SHA-256 of the presented secret (unique index). */
-export async function findTokenByHash({ tokenHash }: { tokenHash: string }) {
-  const [row] = await db
+/** Built on first call, not at import: builds import this module without a database. */
+function lazy<T>(build: () => T): () => T {
+  let value: T | undefined;
+  return () => (value ??= build());
+}
+
+const tokenByHash = lazy(() =>
+  db
     .select({
       id: rigTokens.id,
       name: rigTokens.name,
@@ -22,8 +34,14 @@ export async function findTokenByHash({ tokenHash }: { tokenHash: string }) {
     })
     .from(rigTokens)
     .innerJoin(rigs, and(eq(rigs.id, rigTokens.rigId), eq(rigs.labId, rigTokens.labId)))
-    .where(eq(rigTokens.tokenHash, tokenHash))
-    .limit(1);
+    .where(eq(rigTokens.tokenHash, sql.placeholder('tokenHash')))
+    .limit(1)
+    .prepare('rig_token_by_hash'),
+);
+
+/** The token with its rig, by the SHA-256 of the presented secret (unique index). */
+export async function findTokenByHash({ tokenHash }: { tokenHash: string }) {
+  const [row] = await tokenByHash().execute({ tokenHash });
   return row ?? null;
 }
 
@@ -43,12 +61,14 @@ export async function touchToken({ tokenId }: { tokenId: string }) {
     );
 }
 
-const approvedOnRig = (labId: string, rigId: string) =>
-  and(eq(protocolVersions.labId, labId), eq(protocolVersions.rigId, rigId), eq(protocolVersions.status, 'approved'));
+const approvedOnRig = and(
+  eq(protocolVersions.labId, sql.placeholder('labId')),
+  eq(protocolVersions.rigId, sql.placeholder('rigId')),
+  eq(protocolVersions.status, 'approved'),
+);
 
-/** What a rig may fetch: approved versions assigned to it, in its lab. No specs (they can be large). */
-export async function listApprovedForRig({ labId, rigId }: { labId: string; rigId: string }) {
-  return db
+const approvedList = lazy(() =>
+  db
     .select({
       id: protocolVersions.id,
       protocolId: protocolVersions.protocolId,
@@ -61,17 +81,18 @@ export async function listApprovedForRig({ labId, rigId }: { labId: string; rigI
     })
     .from(protocolVersions)
     .innerJoin(protocols, and(eq(protocols.id, protocolVersions.protocolId), eq(protocols.labId, protocolVersions.labId)))
-    .where(approvedOnRig(labId, rigId))
-    .orderBy(asc(protocols.name), asc(protocolVersions.number));
+    .where(approvedOnRig)
+    .orderBy(asc(protocols.name), asc(protocolVersions.number))
+    .prepare('rig_approved_list'),
+);
+
+/** What a rig may fetch: approved versions assigned to it, in its lab. No specs (they can be large). */
+export async function listApprovedForRig({ labId, rigId }: { labId: string; rigId: string }) {
+  return approvedList().execute({ labId, rigId });
 }
 
-/**
- * One approved version of the rig, with what its file header carries; null when anything
- * does not match. Without the spec: most downloads are answered from the cache of
- * rendered files, and a long envelope is costly to fetch and parse.
- */
-export async function getApprovedForRig({ labId, rigId, versionId }: { labId: string; rigId: string; versionId: string }) {
-  const [row] = await db
+const approvedOne = lazy(() =>
+  db
     .select({
       id: protocolVersions.id,
       number: protocolVersions.number,
@@ -84,8 +105,18 @@ export async function getApprovedForRig({ labId, rigId, versionId }: { labId: st
     .from(protocolVersions)
     .innerJoin(protocols, and(eq(protocols.id, protocolVersions.protocolId), eq(protocols.labId, protocolVersions.labId)))
     .leftJoin(users, eq(users.id, protocolVersions.decidedBy))
-    .where(and(eq(protocolVersions.id, versionId), approvedOnRig(labId, rigId)))
-    .limit(1);
+    .where(and(eq(protocolVersions.id, sql.placeholder('versionId')), approvedOnRig))
+    .limit(1)
+    .prepare('rig_approved_one'),
+);
+
+/**
+ * One approved version of the rig, with what its file header carries; null when anything
+ * does not match. Without the spec: most downloads are answered from the cache of
+ * rendered files, and a long envelope is costly to fetch and parse.
+ */
+export async function getApprovedForRig({ labId, rigId, versionId }: { labId: string; rigId: string; versionId: string }) {
+  const [row] = await approvedOne().execute({ labId, rigId, versionId });
   return row ?? null;
 }
 
@@ -99,4 +130,38 @@ export async function getVersionSpec({ labId, versionId }: { labId: string; vers
     .where(and(eq(protocolVersions.labId, labId), eq(protocolVersions.id, versionId)))
     .limit(1);
   return row?.spec ?? null;
+}
+
+const auditInsert = lazy(() =>
+  db
+    .insert(auditLog)
+    .values({
+      labId: sql.placeholder('labId'),
+      actorTokenId: sql.placeholder('tokenId'),
+      actorLabel: sql.placeholder('label'),
+      action: sql.placeholder('action'),
+      subjectType: 'protocol_version',
+      subjectId: sql.placeholder('subjectId'),
+      checksum: sql.placeholder('checksum'),
+      ip: sql.placeholder('ip'),
+      details: sql.placeholder('details'),
+    })
+    .prepare('rig_download_audit'),
+);
+
+/**
+ * The audit row of a rig download or revalidation: the same row recordAudit writes,
+ * through a prepared insert because it runs on every download.
+ */
+export async function recordRigDownload(e: AuditEntry & { actor: { tokenId: string; label: string }; subjectId: string; labId: string }) {
+  await auditInsert().execute({
+    labId: e.labId,
+    tokenId: e.actor.tokenId,
+    label: e.actor.label,
+    action: e.action,
+    subjectId: e.subjectId,
+    checksum: e.checksum ?? null,
+    ip: e.ip ?? null,
+    details: e.details ?? {},
+  });
 }

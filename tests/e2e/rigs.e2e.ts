@@ -141,3 +141,37 @@ test('a draft exports only as a file marked PREVIEW — NOT APPROVED FOR USE', a
   const doc = (await json.json()) as { preview: boolean; notice: string; meta: { status: string } };
   expect(doc).toMatchObject({ preview: true, notice: 'PREVIEW — NOT APPROVED FOR USE', meta: { status: 'draft' } });
 });
+
+test('a lab admin registers an electrical rig, edits it and archives it', async ({ page }) => {
+  await signInWithPassword(page, DEMO.admin);
+  await page.goto('/rigs');
+  await page.getByRole('link', { name: 'Register a rig' }).click();
+  const form = page.getByRole('form', { name: 'Register a rig' });
+  const name = `Bench 9 — microstim ${tag}`;
+  await form.getByLabel('Name').fill(name);
+  await form.getByLabel('Electrical (current)').check();
+  // The fields follow the modality.
+  await expect(form.getByLabel('Wavelength (nm)')).toHaveCount(0);
+  await form.getByLabel('Output sample clock (Hz)').fill('30000');
+  await form.getByLabel('Electrode material').fill('platinum–iridium');
+  await form.getByRole('button', { name: 'Register rig' }).click();
+  await expect(form.getByText('Enter the geometric area')).toBeVisible();
+  await expect(form.getByLabel('Geometric area (mm²)')).toHaveAttribute('aria-invalid', 'true');
+  await form.getByLabel('Geometric area (mm²)').fill('0.0314');
+  await form.getByRole('button', { name: 'Register rig' }).click();
+  await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
+  await expect(page.getByText('platinum–iridium, 0.0314 mm²')).toBeVisible();
+
+  await page.getByRole('link', { name: 'Edit rig' }).click();
+  await page.getByLabel('Output sample clock (Hz)').fill('25000');
+  await page.getByRole('button', { name: 'Save rig' }).click();
+  await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
+  await expect(page.getByText('25,000 Hz')).toBeVisible();
+
+  page.once('dialog', (d) => d.accept());
+  await page.getByRole('button', { name: 'Archive rig' }).click();
+  await expect(page.getByText(/^Archived \d{4}-\d{2}-\d{2}/)).toBeVisible();
+  await page.goto('/rigs');
+  await expect(page.getByRole('table').getByRole('link', { name })).toHaveCount(0);
+  await expect(page.getByRole('region', { name: 'Archived rigs' }).getByRole('link', { name })).toBeVisible();
+});

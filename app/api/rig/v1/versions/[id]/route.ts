@@ -1,6 +1,4 @@
-import { db } from '@/db/client';
-import { recordAudit } from '@/db/queries/audit';
-import { getApprovedForRig, getVersionSpec } from '@/db/queries/rig-api';
+import { getApprovedForRig, getVersionSpec, recordRigDownload } from '@/db/queries/rig-api';
 import { notFound } from '@/lib/http/errors';
 import { authenticateRig } from '@/lib/rig-api/auth';
 import { parseVersionRef, negotiate } from '@/lib/rig-api/format';
@@ -35,7 +33,7 @@ export const GET = rigRoute(async (request: Request, ctx: { params: Promise<{ id
     () => getVersionSpec({ labId: auth.labId, versionId: version.id }),
   );
   if (request.method !== 'HEAD') {
-    await recordAudit(db, {
+    await recordRigDownload({
       labId: auth.labId,
       actor: { tokenId: auth.token.id, label: `token ${auth.token.name}` },
       action: plan.notModified ? 'rig.version_unchanged' : 'rig.version_downloaded',
