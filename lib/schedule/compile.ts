@@ -69,6 +69,10 @@ export interface Compiled {
   cellS: number;
   /** Poisson(ceilingHz · cellS) CDF for inversion; the last entry is 1. */
   cellCdf: Float64Array;
+  /** cellGuide[k] = first n with cellCdf[n] > k / GUIDE_SIZE: where the inversion search may start for u ≥ k / GUIDE_SIZE. */
+  cellGuide: Int32Array;
+  /** Per segment: how many consecutive cells share one [lo, hi] bound of ρ (see spanCellsFor). */
+  spanCells: Int32Array;
   /** Rounding allowance added around segment bounds so the shortcut never disagrees with ρ(t). */
   pad: Float64Array;
   /** Exclusive upper sample bound of the trial: every onsetSample < this. */
@@ -124,6 +128,12 @@ export function compileSpec(spec: Spec): Compiled {
       pad[i] += 10 * Math.abs(c1[i]) * (1e-9 + 1e-15 * thetaMax);
     }
   }
+  const cellCdf = poissonCdf(spec.ceilingHz * cellS);
+  const spanCells = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    const slope = kind[i] === 0 ? Math.abs(c1[i] / c2[i]) : Math.abs(c1[i] * c2[i]);
+    spanCells[i] = spanCellsFor(slope, cellS, spec.ceilingHz);
+  }
   return {
     spec,
     durationS,
@@ -145,8 +155,37 @@ export function compileSpec(spec: Spec): Compiled {
     nBlocks: Math.ceil(durationS / BLOCK_SECONDS),
     cellsPerBlock,
     cellS,
-    cellCdf: poissonCdf(spec.ceilingHz * cellS),
+    cellCdf,
+    cellGuide: guideTable(cellCdf),
+    spanCells,
     pad,
     endSample: Math.ceil(durationS * clockHz),
   };
+}
+
+export const GUIDE_SIZE = 256;
+
+/** Start points for Poisson inversion: the search result is unchanged, it just skips the first steps. */
+export function guideTable(cdf: Float64Array): Int32Array {
+  const g = new Int32Array(GUIDE_SIZE);
+  let n = 0;
+  for (let k = 0; k < GUIDE_SIZE; k++) {
+    while (cdf[n] <= k / GUIDE_SIZE) n++;
+    g[k] = n;
+  }
+  return g;
+}
+
+/**
+ * Cells per bound span. A bound costs about one sine; a wider span makes the band
+ * [lo, hi) wider, and each height inside it costs an exact ρ(t). With slope s (Hz/s)
+ * the band of one cell is ≈ s·cellS wide out of ceilingHz, and about CELL_MEAN
+ * candidates share a cell, so the cost per candidate ≈ 1/(CELL_MEAN·G) + G·s·cellS/ceilingHz
+ * is least near G = √(ceilingHz / (CELL_MEAN·s·cellS)). Only speed depends on G: every
+ * decision is still "y < ρ(t)".
+ */
+export function spanCellsFor(slope: number, cellS: number, ceilingHz: number): number {
+  const band = slope * cellS;
+  if (!(band > 0)) return 64;
+  return Math.max(1, Math.min(64, Math.round(Math.sqrt(ceilingHz / (CELL_MEAN * band)))));
 }

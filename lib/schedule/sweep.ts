@@ -26,7 +26,7 @@
  * Onsets go to the tick in which the candidate falls (floor). That keeps every pulse
  * of block b inside the block's own tick range, so a file splits cleanly into blocks.
  */
-import type { Compiled } from './compile';
+import { GUIDE_SIZE, type Compiled } from './compile';
 import { BLOCK_SECONDS, type AleaState } from './seeds';
 import { blockSampleRange, type SampleBuffer, type SweepCounts, type SweepState } from './sweep-state';
 
@@ -51,7 +51,7 @@ export function sweepBlock(
   if (!(t1 > t0)) return;
   const endExcl = blockSampleRange(c, block).to;
   const { starts, kind, c0, c1, c2, c3, pad, ceilingHz, clockHz, absoluteS, recoveryS } = c;
-  const { refractoryTicks, maxRateTicks, windowTicks, windowMax, cellsPerBlock, cellS, cellCdf } = c;
+  const { refractoryTicks, maxRateTicks, windowTicks, windowMax, cellsPerBlock, cellS, cellCdf, cellGuide, spanCells } = c;
   const lastSeg = c.nSegments - 1;
   const { pos, ys, rhos } = scratchFor(cellCdf.length);
   const ring = state.ring;
@@ -72,6 +72,12 @@ export function sweepBlock(
   let segEnd = starts[seg + 1];
   let prevTh = NaN;
   let prevSin = 0;
+  let spanEnd = 0;
+  let spanSeg = -1;
+  let lo = -Infinity;
+  let hi = Infinity;
+  let mid = 0;
+  let half = Infinity;
 
   let candidates = 0;
   let thinned = 0;
@@ -92,7 +98,7 @@ export function sweepBlock(
     a1 = a2;
     ac = Math.trunc(x);
     a2 = x - ac;
-    let n = 0;
+    let n = cellGuide[(a2 * GUIDE_SIZE) | 0];
     while (a2 >= cellCdf[n]) n++;
     if (n === 0) continue;
     if (outLen + n > outData.length) {
@@ -106,85 +112,131 @@ export function sweepBlock(
       segStart = starts[seg];
       segEnd = starts[seg + 1];
     }
-    let lo = -Infinity;
-    let hi = Infinity;
-    // A position cs + u·L can round up to cs + L, which may differ from ce by an ulp.
-    const top = Math.max(ce, cs + cellS);
-    if (top < segEnd || seg === lastSeg) {
-      const la = cs - segStart;
-      const lb = Math.min(top, segEnd) - segStart;
-      if (kind[seg] === 0) {
-        const ra = c0[seg] + c1[seg] * (la / c2[seg]);
-        const rb = c0[seg] + c1[seg] * (lb / c2[seg]);
-        lo = (ra < rb ? ra : rb) - pad[seg];
-        hi = (ra < rb ? rb : ra) + pad[seg];
-      } else {
-        const tha = c2[seg] * la + c3[seg];
-        const thb = c2[seg] * lb + c3[seg];
-        // Consecutive cells share an edge: reuse its sine.
-        const sa = tha === prevTh ? prevSin : boundSin(tha);
-        const sb = boundSin(thb);
-        prevTh = thb;
-        prevSin = sb;
-        let smin = sa < sb ? sa : sb;
-        let smax = sa < sb ? sb : sa;
-        if (thb - tha >= TWO_PI) {
-          smin = -1;
-          smax = 1;
+    if (j >= spanEnd || seg !== spanSeg) {
+      // One [lo, hi] for the cells j … spanEnd − 1, when they lie inside one segment
+      // (else for cell j alone, and unbounded if it crosses a segment edge).
+      spanSeg = seg;
+      spanEnd = Math.min(j + spanCells[seg], cellsPerBlock);
+      // A position cs + u·L can round up to cs + L, which may differ from the cell end by an ulp.
+      let top = Math.max(t0 + spanEnd * cellS, t0 + (spanEnd - 1) * cellS + cellS);
+      if (!(top < segEnd || seg === lastSeg)) {
+        spanEnd = j + 1;
+        top = Math.max(ce, cs + cellS);
+      }
+      lo = -Infinity;
+      hi = Infinity;
+      if (top < segEnd || seg === lastSeg) {
+        const la = cs - segStart;
+        const lb = Math.min(top, segEnd) - segStart;
+        if (kind[seg] === 0) {
+          const ra = c0[seg] + c1[seg] * (la / c2[seg]);
+          const rb = c0[seg] + c1[seg] * (lb / c2[seg]);
+          lo = (ra < rb ? ra : rb) - pad[seg];
+          hi = (ra < rb ? rb : ra) + pad[seg];
         } else {
-          // Multiplying by 1/2π may misplace a peak lying within ~1e-15 rad of a cell edge;
-          // the value missed there is ~depth·1e-30, far inside the pad.
-          if (PEAK + TWO_PI * Math.ceil((tha - PEAK) * INV_TWO_PI) <= thb) smax = 1;
-          if (TROUGH + TWO_PI * Math.ceil((tha - TROUGH) * INV_TWO_PI) <= thb) smin = -1;
+          const tha = c2[seg] * la + c3[seg];
+          const thb = c2[seg] * lb + c3[seg];
+          // Consecutive spans share an edge: reuse its sine.
+          const sa = tha === prevTh ? prevSin : boundSin(tha);
+          const sb = boundSin(thb);
+          prevTh = thb;
+          prevSin = sb;
+          let smin = sa < sb ? sa : sb;
+          let smax = sa < sb ? sb : sa;
+          if (thb - tha >= TWO_PI) {
+            smin = -1;
+            smax = 1;
+          } else {
+            // Multiplying by 1/2π may misplace a peak lying within ~1e-15 rad of a span edge;
+            // the value missed there is ~depth·1e-30, far inside the pad.
+            if (PEAK + TWO_PI * Math.ceil((tha - PEAK) * INV_TWO_PI) <= thb) smax = 1;
+            if (TROUGH + TWO_PI * Math.ceil((tha - TROUGH) * INV_TWO_PI) <= thb) smin = -1;
+          }
+          lo = c0[seg] + c1[seg] * smin - pad[seg];
+          hi = c0[seg] + c1[seg] * smax + pad[seg];
         }
-        lo = c0[seg] + c1[seg] * smin - pad[seg];
-        hi = c0[seg] + c1[seg] * smax + pad[seg];
+      }
+      mid = 0;
+      half = Infinity;
+      if (hi !== Infinity) {
+        mid = 0.5 * (lo + hi);
+        half = 0.5 * (hi - lo) + 1e-9 * (Math.abs(lo) + Math.abs(hi) + 1);
       }
     }
 
     // Candidates in draw order: u → position, u → height. Thinning does not depend on
     // history, so it runs before sorting; only survivors are sorted into time order.
     let m = 0;
-    for (let i = 0; i < n; i++) {
-      x = 2091639 * a0 + ac * 2.3283064365386963e-10;
-      a0 = a1;
-      a1 = a2;
-      ac = Math.trunc(x);
-      a2 = x - ac;
-      const t = cs + a2 * cellS;
-      x = 2091639 * a0 + ac * 2.3283064365386963e-10;
-      a0 = a1;
-      a1 = a2;
-      ac = Math.trunc(x);
-      a2 = x - ac;
-      if (t >= t1) continue;
-      const y = a2 * ceilingHz;
-      candidates++;
-      if (y >= hi) {
-        thinned++;
-        continue;
-      }
-      let rho = 0;
-      if (y >= lo || recoveryS > 0) {
+    if (recoveryS > 0) {
+      for (let i = 0; i < n; i++) {
+        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+        a0 = a1;
+        a1 = a2;
+        ac = Math.trunc(x);
+        a2 = x - ac;
+        const t = cs + a2 * cellS;
+        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+        a0 = a1;
+        a1 = a2;
+        ac = Math.trunc(x);
+        a2 = x - ac;
+        if (t >= t1) continue;
+        const y = a2 * ceilingHz;
+        candidates++;
+        if (y >= hi) {
+          thinned++;
+          continue;
+        }
         let sg = seg;
         while (sg < lastSeg && t >= starts[sg + 1]) sg++;
         const local = t - starts[sg];
-        rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
+        const rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
         if (y >= rho) {
           thinned++;
           continue;
         }
+        pos[m] = t;
+        ys[m] = y;
+        rhos[m] = rho;
+        m++;
       }
-      let k = m++;
-      while (k > 0 && pos[k - 1] > t) {
-        pos[k] = pos[k - 1];
-        ys[k] = ys[k - 1];
-        rhos[k] = rhos[k - 1];
-        k--;
+      sortSurvivors(pos, ys, rhos, m);
+    } else {
+      // No relative refractoriness: ρ(t) is needed only for heights inside [lo, hi).
+      // Outside it the bound decides, and "y < hi" is taken without a branch, since it
+      // is a coin flip the branch predictor would miss half the time. The band test
+      // |y − mid| ≤ half is widened for rounding: it may send a few more candidates to
+      // the exact test, never fewer.
+      let cellCandidates = 0;
+      for (let i = 0; i < n; i++) {
+        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+        a0 = a1;
+        a1 = a2;
+        ac = Math.trunc(x);
+        a2 = x - ac;
+        const t = cs + a2 * cellS;
+        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+        a0 = a1;
+        a1 = a2;
+        ac = Math.trunc(x);
+        a2 = x - ac;
+        if (t >= t1) continue;
+        const y = a2 * ceilingHz;
+        cellCandidates++;
+        pos[m] = t;
+        if (Math.abs(y - mid) <= half) {
+          let sg = seg;
+          while (sg < lastSeg && t >= starts[sg + 1]) sg++;
+          const local = t - starts[sg];
+          const rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
+          if (y < rho) m++;
+        } else {
+          m += y < hi ? 1 : 0;
+        }
       }
-      pos[k] = t;
-      ys[k] = y;
-      rhos[k] = rho;
+      candidates += cellCandidates;
+      thinned += cellCandidates - m;
+      sortTimes(pos, m);
     }
 
     // Survivors in time order through the rules that depend on earlier pulses.
@@ -282,4 +334,36 @@ function segmentAt(starts: Float64Array, n: number, t: number): number {
     else hi = mid - 1;
   }
   return lo;
+}
+
+/** Insertion sort of the few survivors of a cell by time, carrying height and ρ along. */
+function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, m: number): void {
+  for (let i = 1; i < m; i++) {
+    const t = pos[i];
+    const y = ys[i];
+    const r = rhos[i];
+    let k = i;
+    while (k > 0 && pos[k - 1] > t) {
+      pos[k] = pos[k - 1];
+      ys[k] = ys[k - 1];
+      rhos[k] = rhos[k - 1];
+      k--;
+    }
+    pos[k] = t;
+    ys[k] = y;
+    rhos[k] = r;
+  }
+}
+
+/** Insertion sort of the few survivors of a cell by time. */
+function sortTimes(pos: Float64Array, m: number): void {
+  for (let i = 1; i < m; i++) {
+    const t = pos[i];
+    let k = i;
+    while (k > 0 && pos[k - 1] > t) {
+      pos[k] = pos[k - 1];
+      k--;
+    }
+    pos[k] = t;
+  }
 }
