@@ -75,3 +75,50 @@ export class ByteWriter {
     }
   }
 }
+
+/** "00".."99" as ASCII pairs: two digits per division. */
+const PAIRS = (() => {
+  const t = new Uint8Array(200);
+  for (let i = 0; i < 100; i++) {
+    t[2 * i] = 48 + ((i / 10) | 0);
+    t[2 * i + 1] = 48 + (i % 10);
+  }
+  return t;
+})();
+
+/**
+ * Non-negative safe integer in decimal at buf[pos…] (caller ensures ≤ 16 bytes of room);
+ * returns the position after it. A free function on locals, for the hot loops.
+ */
+export function putUint(buf: Uint8Array, pos: number, x: number): number {
+  if (x >= 1e9) {
+    const hi = Math.floor(x / 1e9);
+    pos = putUint(buf, pos, hi);
+    return putPadded9(buf, pos, (x - hi * 1e9) | 0);
+  }
+  let v = x | 0;
+  const len = v < 10 ? 1 : v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : 9;
+  let q = pos + len;
+  while (v >= 100) {
+    const y = (v / 100) | 0;
+    const r = (v - y * 100) << 1;
+    buf[--q] = PAIRS[r + 1];
+    buf[--q] = PAIRS[r];
+    v = y;
+  }
+  if (v >= 10) {
+    buf[--q] = PAIRS[(v << 1) + 1];
+    buf[--q] = PAIRS[v << 1];
+  } else buf[--q] = 48 + v;
+  return pos + len;
+}
+
+function putPadded9(buf: Uint8Array, pos: number, v: number): number {
+  let q = pos + 9;
+  for (let i = 0; i < 9; i++) {
+    const y = (v / 10) | 0;
+    buf[--q] = 48 + v - y * 10;
+    v = y;
+  }
+  return pos + 9;
+}

@@ -11,7 +11,7 @@
  * Server-side (node:crypto): the engine's seed hashing stays pure for the browser.
  */
 import { createHash, type Hash } from 'node:crypto';
-import { ByteWriter } from './bytes';
+import { ByteWriter, putUint } from './bytes';
 
 export const CHECKSUM_OF =
   "sha256 over UTF-8 lines '<trial>,<onsetSample>\\n' (decimal integers), trials ascending, onsets ascending within a trial, no header";
@@ -25,13 +25,23 @@ export class ChecksumWriter {
   /** Append pulses of one trial (samples ascending). */
   add(trial: number, samples: ArrayLike<number>, length = samples.length): void {
     const w = this.w;
+    const buf = w.buf;
+    // "<trial>," once, then copied in front of every line.
+    const head = new Uint8Array(24);
+    let hn = putUint(head, 0, trial);
+    head[hn++] = 44; // ','
+    let p = w.pos;
     for (let i = 0; i < length; i++) {
-      if (w.pos > CHUNK) this.flush();
-      w.uint(trial);
-      w.buf[w.pos++] = 44; // ','
-      w.uint(samples[i]);
-      w.buf[w.pos++] = 10; // '\n'
+      if (p > CHUNK) {
+        w.pos = p;
+        this.flush();
+        p = 0;
+      }
+      for (let k = 0; k < hn; k++) buf[p++] = head[k];
+      p = putUint(buf, p, samples[i]);
+      buf[p++] = 10; // '\n'
     }
+    w.pos = p;
   }
 
   digest(): string {

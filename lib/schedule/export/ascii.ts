@@ -1,5 +1,5 @@
 /** Text helpers for the exporters: bytes of fixed strings, and onset seconds written without String(). */
-import { ByteWriter } from '../bytes';
+import { ByteWriter, putUint } from '../bytes';
 
 export { ByteWriter };
 
@@ -61,37 +61,20 @@ export function writeSeconds(w: ByteWriter, sample: number, clockHz: number, pla
   for (let i = 0; i < s.length; i++) w.buf[w.pos++] = s.charCodeAt(i);
 }
 
-/** Decimal digits of a non-negative safe integer into `out` (most significant first); returns the count. */
-function digitsOf(x: number, out: Uint8Array): number {
-  if (x < 1e9) return smallDigits(x | 0, out, 0);
-  const hi = Math.floor(x / 1e9);
-  const n = smallDigits(hi | 0, out, 0);
-  let v = (x - hi * 1e9) | 0;
-  for (let q = n + 8; q >= n; q--) {
-    const y = (v / 10) | 0;
-    out[q] = 48 + v - y * 10;
-    v = y;
-  }
-  return n + 9;
-}
-
-/** v < 1e9 (int32 arithmetic), written at out[at…]; returns at + digit count. */
-function smallDigits(v: number, out: Uint8Array, at: number): number {
-  const len = v < 10 ? 1 : v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : 9;
-  let q = at + len;
-  do {
-    const y = (v / 10) | 0;
-    out[--q] = 48 + v - y * 10;
-    v = y;
-  } while (v > 0);
-  return at + len;
+/** Bytes as little-endian 32-bit words (zero-padded), for writing a constant with a few wide stores. */
+function wordsOf(bytes: Uint8Array): Uint32Array {
+  const words = new Uint32Array(Math.ceil(bytes.length / 4));
+  for (let i = 0; i < bytes.length; i++) words[i >> 2] |= bytes[i] << (8 * (i & 3));
+  return words;
 }
 
 /**
  * CSV rows `<trial>,<index>,<onset_s>,<onset_sample><suffix>` straight into bytes.
- * onset_s reuses the digits of sample·scale with the decimal point put in place, so a
- * row costs two digit conversions, not three; clocks without a finite decimal period
- * (e.g. 30 kHz) fall back to writeSeconds.
+ * onset_s is written as integer part, '.', and the fraction's digits without trailing
+ * zeros, from the integer sample·scale (no String, no float formatting); clocks
+ * without a finite decimal period (e.g. 30 kHz) fall back to writeSeconds. The
+ * constant prefix and suffix go in as 32-bit words; a word may run up to 3 bytes past
+ * the constant, into room that the next field overwrites or that lies beyond `pos`.
  */
 export function writeRows(
   w: ByteWriter,
@@ -103,44 +86,44 @@ export function writeRows(
   clockHz: number,
   plan: DecimalPlan | null,
 ): void {
-  w.ensure(length * (prefix.length + suffix.length + 64));
+  w.ensure(length * (prefix.length + suffix.length + 64) + 8);
   const b = w.buf;
-  const tmp = new Uint8Array(24);
-  const sd = new Uint8Array(24);
+  const view = new DataView(b.buffer, b.byteOffset, b.byteLength);
+  const pre = wordsOf(prefix);
+  const suf = wordsOf(suffix);
+  const preLen = prefix.length;
+  const sufLen = suffix.length;
   let p = w.pos;
   const places = plan ? plan.places : 0;
   const scale = plan ? plan.scale : 1;
+  const pow10 = plan ? plan.pow10 : 1;
   const minV = plan ? plan.pow10 * 1e-6 : 0;
   for (let i = 0; i < length; i++) {
     const s = samples[i];
-    for (let k = 0; k < prefix.length; k++) b[p++] = prefix[k];
-    let n = digitsOf(firstIndex + i, tmp);
-    for (let k = 0; k < n; k++) b[p++] = tmp[k];
+    for (let k = 0; k < pre.length; k++) view.setUint32(p + 4 * k, pre[k], true);
+    p += preLen;
+    p = putUint(b, p, firstIndex + i);
     b[p++] = 44;
     const v = s * scale;
-    let reuse = false;
-    if (plan && v < 1e15 && (v === 0 || v >= minV)) {
-      n = digitsOf(v, tmp);
-      reuse = scale === 1;
-      if (n <= places) {
-        // 0.000ddd
-        let end = n;
-        while (end > 0 && tmp[end - 1] === 48) end--;
-        if (end === 0) b[p++] = 48;
-        else {
-          b[p++] = 48;
-          b[p++] = 46;
-          for (let k = n; k < places; k++) b[p++] = 48;
-          for (let k = 0; k < end; k++) b[p++] = tmp[k];
+    if (plan && v < FAST_LIMIT && (v === 0 || v >= minV)) {
+      const ip = Math.floor(v / pow10);
+      p = putUint(b, p, ip);
+      const f = v - ip * pow10;
+      if (f > 0) {
+        let width = places;
+        let q = f | 0;
+        let y = (q / 10) | 0;
+        while (q === y * 10) {
+          q = y;
+          y = (q / 10) | 0;
+          width--;
         }
-      } else {
-        const ip = n - places;
-        for (let k = 0; k < ip; k++) b[p++] = tmp[k];
-        let end = n;
-        while (end > ip && tmp[end - 1] === 48) end--;
-        if (end > ip) {
-          b[p++] = 46;
-          for (let k = ip; k < end; k++) b[p++] = tmp[k];
+        b[p++] = 46; // '.'
+        p += width;
+        for (let k = 1; k <= width; k++) {
+          y = (q / 10) | 0;
+          b[p - k] = 48 + q - y * 10;
+          q = y;
         }
       }
     } else {
@@ -149,12 +132,9 @@ export function writeRows(
       p = w.pos;
     }
     b[p++] = 44;
-    if (reuse) for (let k = 0; k < n; k++) b[p++] = tmp[k];
-    else {
-      n = digitsOf(s, sd);
-      for (let k = 0; k < n; k++) b[p++] = sd[k];
-    }
-    for (let k = 0; k < suffix.length; k++) b[p++] = suffix[k];
+    p = putUint(b, p, s);
+    for (let k = 0; k < suf.length; k++) view.setUint32(p + 4 * k, suf[k], true);
+    p += sufLen;
   }
   w.pos = p;
 }
