@@ -73,10 +73,16 @@ export function entityTag(checksum: string): string {
   return `"${checksum}"`;
 }
 
+/** The entity tags of an If-None-Match header, W/ prefixes removed (weak comparison), and whether it is `*`. */
+export function parseIfNoneMatch(header: string | null): { star: boolean; tags: string[] } {
+  if (!header) return { star: false, tags: [] };
+  if (header.trim() === '*') return { star: true, tags: [] };
+  return { star: false, tags: header.split(',').map((t) => t.trim().replace(/^W\//, '')).filter(Boolean) };
+}
+
 /** If-None-Match uses the weak comparison (RFC 9110 §13.1.2): W/ prefixes are ignored; `*` matches. */
 export function ifNoneMatchHits(header: string | null, etag: string): boolean {
-  if (!header) return false;
-  if (header.trim() === '*') return true;
+  const { star, tags } = parseIfNoneMatch(header);
   const want = etag.replace(/^W\//, '');
-  return header.split(',').some((t) => t.trim().replace(/^W\//, '') === want);
+  return star || tags.includes(want);
 }

@@ -148,6 +148,8 @@ describe('what a token can read', () => {
       bodies.add(await res.text());
     }
     expect(bodies.size).toBe(1);
+    // Nothing was downloaded, so nothing is audited as a download.
+    expect(await db.select().from(auditLog).where(eq(auditLog.actorTokenId, s.token.id))).toEqual([]);
     // Those 404s were made with a valid token: they do not count as failed attempts.
     expect((await list(s.token.secret, ip)).status).toBe(200);
   });
@@ -216,6 +218,12 @@ describe('downloads', () => {
     const res = await fetchFile(`${s.v.version.id}.json`, s.token.secret, ip);
     await res.arrayBuffer();
     await (await fetchFile(`${s.v.version.id}.csv`, s.token.secret, ip, { 'if-none-match': `"${s.v.checksum}"` })).arrayBuffer();
+    const head = await getVersion(
+      new Request(`${BASE}/api/rig/v1/versions/${s.v.version.id}.csv`, { method: 'HEAD', headers: { 'x-forwarded-for': ip, authorization: `Bearer ${s.token.secret}` } }),
+      { params: Promise.resolve({ id: `${s.v.version.id}.csv` }) },
+    );
+    expect(head.status).toBe(200);
+    expect(head.headers.get('etag')).toBe(`"${s.v.checksum}"`);
     const rows = await db.select().from(auditLog).where(and(eq(auditLog.subjectId, s.v.version.id), eq(auditLog.actorTokenId, s.token.id)));
     expect(rows.map((r) => r.action).sort()).toEqual(['rig.version_downloaded', 'rig.version_unchanged']);
     const dl = rows.find((r) => r.action === 'rig.version_downloaded')!;
