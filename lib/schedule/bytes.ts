@@ -122,3 +122,10 @@ function putPadded9(buf: Uint8Array, pos: number, v: number): number {
   }
   return pos + 9;
 }
+
+/** Bytes as little-endian 32-bit words (zero-padded), for writing a constant with a few wide stores. */
+export function wordsOf(bytes: Uint8Array): Uint32Array {
+  const words = new Uint32Array(Math.ceil(bytes.length / 4));
+  for (let i = 0; i < bytes.length; i++) words[i >> 2] |= bytes[i] << (8 * (i & 3));
+  return words;
+}

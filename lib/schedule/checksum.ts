@@ -11,7 +11,7 @@
  * Server-side (node:crypto): the engine's seed hashing stays pure for the browser.
  */
 import { createHash, type Hash } from 'node:crypto';
-import { ByteWriter, putUint } from './bytes';
+import { ByteWriter, putUint, wordsOf } from './bytes';
 
 export const CHECKSUM_OF =
   "sha256 over UTF-8 lines '<trial>,<onsetSample>\\n' (decimal integers), trials ascending, onsets ascending within a trial, no header";
@@ -26,10 +26,13 @@ export class ChecksumWriter {
   add(trial: number, samples: ArrayLike<number>, length = samples.length): void {
     const w = this.w;
     const buf = w.buf;
-    // "<trial>," once, then copied in front of every line.
+    // "<trial>," once, then stored in front of every line as 32-bit words (the last
+    // word may run past it; the sample digits overwrite that).
     const head = new Uint8Array(24);
     let hn = putUint(head, 0, trial);
     head[hn++] = 44; // ','
+    const h32 = wordsOf(head.subarray(0, hn));
+    const view = new DataView(buf.buffer, buf.byteOffset, buf.byteLength);
     let p = w.pos;
     for (let i = 0; i < length; i++) {
       if (p > CHUNK) {
@@ -37,8 +40,8 @@ export class ChecksumWriter {
         this.flush();
         p = 0;
       }
-      for (let k = 0; k < hn; k++) buf[p++] = head[k];
-      p = putUint(buf, p, samples[i]);
+      for (let k = 0; k < h32.length; k++) view.setUint32(p + 4 * k, h32[k], true);
+      p = putUint(buf, p + hn, samples[i]);
       buf[p++] = 10; // '\n'
     }
     w.pos = p;

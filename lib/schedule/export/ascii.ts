@@ -1,5 +1,5 @@
 /** Text helpers for the exporters: bytes of fixed strings, and onset seconds written without String(). */
-import { ByteWriter, putUint } from '../bytes';
+import { ByteWriter, putUint, wordsOf } from '../bytes';
 
 export { ByteWriter };
 
@@ -59,13 +59,6 @@ export function writeSeconds(w: ByteWriter, sample: number, clockHz: number, pla
   }
   const s = String(sample / clockHz);
   for (let i = 0; i < s.length; i++) w.buf[w.pos++] = s.charCodeAt(i);
-}
-
-/** Bytes as little-endian 32-bit words (zero-padded), for writing a constant with a few wide stores. */
-function wordsOf(bytes: Uint8Array): Uint32Array {
-  const words = new Uint32Array(Math.ceil(bytes.length / 4));
-  for (let i = 0; i < bytes.length; i++) words[i >> 2] |= bytes[i] << (8 * (i & 3));
-  return words;
 }
 
 /**
