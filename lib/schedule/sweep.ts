@@ -53,6 +53,7 @@ export function sweepBlock(
   const { starts, kind, c0, c1, c2, c3, pad, ceilingHz, clockHz, absoluteS, recoveryS } = c;
   const { refractoryTicks, maxRateTicks, windowTicks, windowMax, cellsPerBlock, cellS, cellCdf, cellGuide, spanCells } = c;
   const lastSeg = c.nSegments - 1;
+  pairScale = 1 / (4 * cellS);
   const { pos, ys, rhos } = scratchFor(cellCdf.length);
   const ring = state.ring;
   let ringCount = state.ringCount;
@@ -78,6 +79,7 @@ export function sweepBlock(
   let hi = Infinity;
   let mid = 0;
   let half = Infinity;
+  let invSpread = 1;
 
   let candidates = 0;
   let thinned = 0;
@@ -161,6 +163,7 @@ export function sweepBlock(
       if (hi !== Infinity) {
         mid = 0.5 * (lo + hi);
         half = 0.5 * (hi - lo) + 1e-9 * (Math.abs(lo) + Math.abs(hi) + 1);
+        invSpread = 1 / (2 * (ceilingHz + Math.abs(mid) + 1));
       }
     }
 
@@ -231,7 +234,10 @@ export function sweepBlock(
           const rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
           if (y < rho) m++;
         } else {
-          m += y < hi ? 1 : 0;
+          // Outside the band y < lo ⇔ y < mid, and (y − mid)·invSpread lies in (−½, ½) and
+          // is not 0, so its floor is −1 exactly when the candidate survives. Arithmetic
+          // instead of a comparison: the outcome is a coin flip a branch would mispredict.
+          m -= Math.floor((y - mid) * invSpread) | 0;
         }
       }
       candidates += cellCandidates;
@@ -355,8 +361,24 @@ function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, 
   }
 }
 
+const pair = new Float64Array(2);
+/** 1 / (4·cellS) of the block being swept (set by sweepBlock). */
+let pairScale = 1;
+
 /** Insertion sort of the few survivors of a cell by time. */
 function sortTimes(pos: Float64Array, m: number): void {
+  if (m === 2) {
+    // The commonest case without a data-dependent branch: both lie in one cell, so
+    // (b − a)/(4·cellS) is in (−½, ½) and its floor is −1 exactly when b < a.
+    const a = pos[0];
+    const b = pos[1];
+    const swap = -(Math.floor((b - a) * pairScale) | 0);
+    pair[0] = a;
+    pair[1] = b;
+    pos[0] = pair[swap];
+    pos[1] = pair[swap ^ 1];
+    return;
+  }
   for (let i = 1; i < m; i++) {
     const t = pos[i];
     let k = i;
