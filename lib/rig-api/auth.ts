@@ -2,13 +2,15 @@
  * Bearer-token authentication for the rig API. A token is accepted only from the
  * Authorization header: URLs end up in proxy logs, shell history and browser caches.
  * Failed attempts count against the caller's address; past the limit every request
- * from it gets 429 until the window passes, before any token is looked up.
+ * from it gets 429 until the window passes, before any token is looked up. A token that
+ * passed is kept a few seconds in memory (token-cache.ts) to spare a rig loop the lookup.
  */
 import { findTokenByHash, touchToken } from '@/db/queries/rig-api';
 import { checkRigToken, clientAddress, recordRigTokenFailure } from '@/lib/auth/rate-limit';
 import { hashSecret } from '@/lib/auth/tokens';
 import { AppError } from '@/lib/http/errors';
 import { TOKEN_PREFIX } from '@/lib/rigs/schema';
+import { cachedToken, rememberToken } from './token-cache';
 
 export type RigAuth = {
   token: { id: string; name: string };
@@ -58,23 +60,35 @@ export async function authenticateRig(request: Request): Promise<RigAuth> {
     throw unauthorized('The Authorization header must be "Bearer <token>".', 'invalid_request');
   }
 
-  const row = await findTokenByHash({ tokenHash: hashSecret(m[1]!) });
+  const tokenHash = hashSecret(m[1]!);
   const now = Date.now();
-  let refusal: string | null = null;
-  if (!row) refusal = 'This token is not valid.';
-  else if (row.revokedAt) refusal = 'This token has been revoked. Ask a lab admin for a new one.';
-  else if (row.expiresAt.getTime() <= now) refusal = 'This token has expired. Ask a lab admin for a new one.';
-  else if (row.rig.archivedAt) refusal = 'The rig of this token is archived.';
-  if (refusal || !row) {
+  let token = cachedToken(tokenHash, now);
+  if (!token) {
+    const row = await findTokenByHash({ tokenHash });
+    let refusal: string | null = null;
+    if (!row) refusal = 'This token is not valid.';
+    else if (row.revokedAt) refusal = 'This token has been revoked. Ask a lab admin for a new one.';
+    else if (row.rig.archivedAt) refusal = 'The rig of this token is archived.';
+    if (refusal || !row) {
+      await recordRigTokenFailure(address);
+      throw unauthorized(refusal ?? 'This token is not valid.');
+    }
+    token = { id: row.id, name: row.name, labId: row.labId, expiresAt: row.expiresAt, lastUsedAt: row.lastUsedAt, rig: row.rig };
+    if (row.expiresAt.getTime() > now) rememberToken(tokenHash, token, now);
+  }
+  if (token.expiresAt.getTime() <= now) {
     await recordRigTokenFailure(address);
-    throw unauthorized(refusal ?? 'This token is not valid.');
+    throw unauthorized('This token has expired. Ask a lab admin for a new one.');
   }
 
-  if (!row.lastUsedAt || now - row.lastUsedAt.getTime() > 60_000) await touchToken({ tokenId: row.id });
+  if (!token.lastUsedAt || now - token.lastUsedAt.getTime() > 60_000) {
+    await touchToken({ tokenId: token.id });
+    token.lastUsedAt = new Date(now);
+  }
   return {
-    token: { id: row.id, name: row.name },
-    rig: { id: row.rig.id, name: row.rig.name, modality: row.rig.modality, clockHz: row.rig.clockHz },
-    labId: row.labId,
+    token: { id: token.id, name: token.name },
+    rig: { id: token.rig.id, name: token.rig.name, modality: token.rig.modality, clockHz: token.rig.clockHz },
+    labId: token.labId,
     address,
   };
 }

@@ -9,6 +9,7 @@ import { recordAudit } from '@/db/queries/audit';
 import { countVersionsOnRig, findRigByName, getRig, type RigRow } from '@/db/queries/rigs';
 import { hashSecret, newSecret } from '@/lib/auth/tokens';
 import { AppError, conflict, notFound } from '@/lib/http/errors';
+import { forgetTokens } from '@/lib/rig-api/token-cache';
 import { TOKEN_PREFIX, type RigValues } from './schema';
 
 export type Actor = { labId: string; userId: string; email: string; ip?: string | null };
@@ -103,6 +104,9 @@ export async function updateRig(actor: Actor, rigId: string, values: RigValues):
 
 /** Archived rigs leave the lists and their tokens stop working; nothing is deleted. */
 export async function setRigArchived(actor: Actor, rigId: string, archived: boolean): Promise<void> {
+  // Dropped before the change too: a request checked in between must not re-remember the
+  // token with the rig still live in its row.
+  forgetTokens({ rigId });
   await db.transaction(async (tx) => {
     const [rig] = await tx
       .select({ id: rigs.id, name: rigs.name, archivedAt: rigs.archivedAt })
@@ -133,6 +137,7 @@ export async function setRigArchived(actor: Actor, rigId: string, archived: bool
       details: { name: rig.name },
     });
   });
+  forgetTokens({ rigId });
 }
 
 export type CreatedToken = { id: string; name: string; secret: string; expiresAt: Date };
@@ -166,6 +171,7 @@ export async function createRigToken(
 }
 
 export async function revokeRigToken(actor: Actor, input: { rigId: string; tokenId: string }): Promise<void> {
+  forgetTokens({ tokenId: input.tokenId });
   await db.transaction(async (tx) => {
     const [token] = await tx
       .update(rigTokens)
@@ -198,4 +204,5 @@ export async function revokeRigToken(actor: Actor, input: { rigId: string; token
       details: { name: token.name, rigId: input.rigId },
     });
   });
+  forgetTokens({ tokenId: input.tokenId });
 }

@@ -5,12 +5,13 @@
  */
 import { createHash, randomInt } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { GET as listVersions } from '@/app/api/rig/v1/versions/route';
 import { GET as getVersion } from '@/app/api/rig/v1/versions/[id]/route';
 import { db } from '@/db/client';
 import { auditLog, rigTokens } from '@/db/schema';
 import { createRigToken, revokeRigToken } from '@/lib/rigs/manage';
+import { TOKEN_CACHE_TTL_MS } from '@/lib/rig-api/token-cache';
 import { makeLab, makeRig } from './support/fixtures';
 import { makeVersion, smallSpec } from './support/rig-fixtures';
 
@@ -75,10 +76,30 @@ describe('rig tokens', () => {
     const s = await setup();
     const ip = newIp();
     expect((await list(s.token.secret, ip)).status).toBe(200);
-    await db.update(rigTokens).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(rigTokens.id, s.token.id));
-    const res = await list(s.token.secret, ip);
-    expect(res.status).toBe(401);
-    expect(((await res.json()) as { error: { message: string } }).error.message).toMatch(/expired/);
+    // Let the 30 days pass (only Date is faked: the database connection keeps real timers).
+    vi.useFakeTimers({ toFake: ['Date'] });
+    try {
+      vi.setSystemTime(s.token.expiresAt.getTime() + 1000);
+      const res = await list(s.token.secret, ip);
+      expect(res.status).toBe(401);
+      expect(((await res.json()) as { error: { message: string } }).error.message).toMatch(/expired/);
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+
+  it('changed outside the app (SQL) are seen within the token cache’s few seconds', async () => {
+    const s = await setup();
+    const ip = newIp();
+    expect((await list(s.token.secret, ip)).status).toBe(200);
+    await db.update(rigTokens).set({ revokedAt: new Date() }).where(eq(rigTokens.id, s.token.id));
+    vi.useFakeTimers({ toFake: ['Date'] });
+    try {
+      vi.setSystemTime(Date.now() + TOKEN_CACHE_TTL_MS + 1);
+      expect((await list(s.token.secret, ip)).status).toBe(401);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 
   it('are accepted only from the Authorization header', async () => {
