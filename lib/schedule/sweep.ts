@@ -53,7 +53,6 @@ export function sweepBlock(
   const { starts, kind, c0, c1, c2, c3, pad, ceilingHz, clockHz, absoluteS, recoveryS } = c;
   const { refractoryTicks, maxRateTicks, windowTicks, windowMax, cellsPerBlock, cellS, cellCdf, cellGuide, spanCells } = c;
   const lastSeg = c.nSegments - 1;
-  pairScale = 1 / (4 * cellS);
   const { pos, ys, rhos } = scratchFor(cellCdf.length);
   const ring = state.ring;
   let ringCount = state.ringCount;
@@ -79,7 +78,6 @@ export function sweepBlock(
   let hi = Infinity;
   let mid = 0;
   let half = Infinity;
-  let invSpread = 1;
 
   let candidates = 0;
   let thinned = 0;
@@ -163,7 +161,6 @@ export function sweepBlock(
       if (hi !== Infinity) {
         mid = 0.5 * (lo + hi);
         half = 0.5 * (hi - lo) + 1e-9 * (Math.abs(lo) + Math.abs(hi) + 1);
-        invSpread = 1 / (2 * (ceilingHz + Math.abs(mid) + 1));
       }
     }
 
@@ -234,10 +231,9 @@ export function sweepBlock(
           const rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
           if (y < rho) m++;
         } else {
-          // Outside the band y < lo ⇔ y < mid, and (y − mid)·invSpread lies in (−½, ½) and
-          // is not 0, so its floor is −1 exactly when the candidate survives. Arithmetic
-          // instead of a comparison: the outcome is a coin flip a branch would mispredict.
-          m -= Math.floor((y - mid) * invSpread) | 0;
+          // Outside the band the bound decides. A flag, not a branch: the outcome is a
+          // coin flip a branch would mispredict.
+          m += bit(y < hi);
         }
       }
       candidates += cellCandidates;
@@ -246,6 +242,33 @@ export function sweepBlock(
     }
 
     // Survivors in time order through the rules that depend on earlier pulses.
+    if (windowMax === 0 && recoveryS === 0) {
+      // The same rules as the loop below, as flags instead of branches: which rule
+      // fails first is data-dependent and would be mispredicted often.
+      for (let i = 0; i < m; i++) {
+        const t = pos[i];
+        let smp = Math.floor(t * clockHz);
+        if (smp >= endExcl) smp = endExcl - 1;
+        const gap = smp - lastSample;
+        const rf = bit(t - lastOnset < absoluteS);
+        const cf = bit(gap < refractoryTicks) & (rf ^ 1);
+        const mf = bit(gap < maxRateTicks) & ((rf | cf) ^ 1);
+        const keep = (rf | cf | mf) ^ 1;
+        refractory += rf;
+        clock += cf;
+        maxRate += mf;
+        kept += keep;
+        outData[outLen] = smp;
+        outLen += keep;
+        pick[0] = lastSample;
+        pick[1] = smp;
+        pick[2] = lastOnset;
+        pick[3] = smp / clockHz;
+        lastSample = pick[keep];
+        lastOnset = pick[2 + keep];
+      }
+      continue;
+    }
     for (let i = 0; i < m; i++) {
       const t = pos[i];
       const since = t - lastOnset;
@@ -362,17 +385,15 @@ function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, 
 }
 
 const pair = new Float64Array(2);
-/** 1 / (4·cellS) of the block being swept (set by sweepBlock). */
-let pairScale = 1;
+const pick = new Float64Array(4);
 
 /** Insertion sort of the few survivors of a cell by time. */
 function sortTimes(pos: Float64Array, m: number): void {
   if (m === 2) {
-    // The commonest case without a data-dependent branch: both lie in one cell, so
-    // (b − a)/(4·cellS) is in (−½, ½) and its floor is −1 exactly when b < a.
+    // The commonest case, without a data-dependent branch.
     const a = pos[0];
     const b = pos[1];
-    const swap = -(Math.floor((b - a) * pairScale) | 0);
+    const swap = bit(b < a);
     pair[0] = a;
     pair[1] = b;
     pos[0] = pair[swap];
@@ -388,4 +409,9 @@ function sortTimes(pos: Float64Array, m: number): void {
     }
     pos[k] = t;
   }
+}
+
+/** 1 or 0. V8 turns `bool | 0` into a flag move, not a branch. */
+function bit(b: boolean): number {
+  return (b as unknown as number) | 0;
 }
