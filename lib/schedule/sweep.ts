@@ -106,7 +106,7 @@ export function sweepBlock(
       outData = out.reserve(n);
     }
 
-    // Bounds of ρ over the cell, when the cell lies inside one segment.
+    // The segment the cell starts in.
     while (seg < lastSeg && cs >= segEnd) {
       seg++;
       segStart = starts[seg];
@@ -387,17 +387,39 @@ function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, 
 const pair = new Float64Array(2);
 const pick = new Float64Array(4);
 
-/** Insertion sort of the few survivors of a cell by time. */
+/** Put pos[i] and pos[j] (i < j) in order, without a data-dependent branch. */
+function order(pos: Float64Array, i: number, j: number): void {
+  const a = pos[i];
+  const b = pos[j];
+  const swap = bit(b < a);
+  pair[0] = a;
+  pair[1] = b;
+  pos[i] = pair[swap];
+  pos[j] = pair[swap ^ 1];
+}
+
+/**
+ * Sort the few survivors of a cell by time: sorting networks (compare-exchange with
+ * flags) up to 4, whose comparisons would be coin flips for a branch; insertion above.
+ */
 function sortTimes(pos: Float64Array, m: number): void {
+  if (m < 2) return;
   if (m === 2) {
-    // The commonest case, without a data-dependent branch.
-    const a = pos[0];
-    const b = pos[1];
-    const swap = bit(b < a);
-    pair[0] = a;
-    pair[1] = b;
-    pos[0] = pair[swap];
-    pos[1] = pair[swap ^ 1];
+    order(pos, 0, 1);
+    return;
+  }
+  if (m === 3) {
+    order(pos, 0, 1);
+    order(pos, 1, 2);
+    order(pos, 0, 1);
+    return;
+  }
+  if (m === 4) {
+    order(pos, 0, 1);
+    order(pos, 2, 3);
+    order(pos, 0, 2);
+    order(pos, 1, 3);
+    order(pos, 1, 2);
     return;
   }
   for (let i = 1; i < m; i++) {
