@@ -242,33 +242,6 @@ export function sweepBlock(
     }
 
     // Survivors in time order through the rules that depend on earlier pulses.
-    if (windowMax === 0 && recoveryS === 0) {
-      // The same rules as the loop below, as flags instead of branches: which rule
-      // fails first is data-dependent and would be mispredicted often.
-      for (let i = 0; i < m; i++) {
-        const t = pos[i];
-        let smp = Math.floor(t * clockHz);
-        if (smp >= endExcl) smp = endExcl - 1;
-        const gap = smp - lastSample;
-        const rf = bit(t - lastOnset < absoluteS);
-        const cf = bit(gap < refractoryTicks) & (rf ^ 1);
-        const mf = bit(gap < maxRateTicks) & ((rf | cf) ^ 1);
-        const keep = (rf | cf | mf) ^ 1;
-        refractory += rf;
-        clock += cf;
-        maxRate += mf;
-        kept += keep;
-        outData[outLen] = smp;
-        outLen += keep;
-        pick[0] = lastSample;
-        pick[1] = smp;
-        pick[2] = lastOnset;
-        pick[3] = smp / clockHz;
-        lastSample = pick[keep];
-        lastOnset = pick[2 + keep];
-      }
-      continue;
-    }
     for (let i = 0; i < m; i++) {
       const t = pos[i];
       const since = t - lastOnset;
@@ -385,41 +358,18 @@ function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, 
 }
 
 const pair = new Float64Array(2);
-const pick = new Float64Array(4);
 
-/** Put pos[i] and pos[j] (i < j) in order, without a data-dependent branch. */
-function order(pos: Float64Array, i: number, j: number): void {
-  const a = pos[i];
-  const b = pos[j];
-  const swap = bit(b < a);
-  pair[0] = a;
-  pair[1] = b;
-  pos[i] = pair[swap];
-  pos[j] = pair[swap ^ 1];
-}
-
-/**
- * Sort the few survivors of a cell by time: sorting networks (compare-exchange with
- * flags) up to 4, whose comparisons would be coin flips for a branch; insertion above.
- */
+/** Insertion sort of the few survivors of a cell by time. */
 function sortTimes(pos: Float64Array, m: number): void {
-  if (m < 2) return;
   if (m === 2) {
-    order(pos, 0, 1);
-    return;
-  }
-  if (m === 3) {
-    order(pos, 0, 1);
-    order(pos, 1, 2);
-    order(pos, 0, 1);
-    return;
-  }
-  if (m === 4) {
-    order(pos, 0, 1);
-    order(pos, 2, 3);
-    order(pos, 0, 2);
-    order(pos, 1, 3);
-    order(pos, 1, 2);
+    // The commonest case, without a data-dependent branch.
+    const a = pos[0];
+    const b = pos[1];
+    const swap = bit(b < a);
+    pair[0] = a;
+    pair[1] = b;
+    pos[0] = pair[swap];
+    pos[1] = pair[swap ^ 1];
     return;
   }
   for (let i = 1; i < m; i++) {
