@@ -70,6 +70,8 @@ test('a lab admin creates a rig token, sees the secret once, the rig uses it, an
     expect(actions).toEqual(['rig.version_downloaded', 'rig.version_unchanged']);
   }
 
+  // Used a moment ago (so the server remembers the token), then revoked: refused at once.
+  expect((await rig.request.get('/api/rig/v1/versions', { headers: { Authorization: `Bearer ${secret}` } })).status()).toBe(200);
   page.once('dialog', (d) => d.accept());
   await page.getByRole('button', { name: `Revoke ${tokenName}` }).click();
   await expect(page.getByTestId('token-row').filter({ hasText: tokenName })).toContainText('revoked');

@@ -55,19 +55,19 @@ export function RigForm({ rigId, initial, modalityLocked }: Props) {
         {errs.modality ? <p className="field-error">{String(errs.modality.message)}</p> : null}
       </fieldset>
       <div className="grid gap-4 sm:grid-cols-2">
-        <Field name="clockHz" label="Output sample clock (Hz)" register={register} errors={errs} hint="Every schedule made for this rig is placed on this clock." />
+        <Field name="clockHz" label="Output sample clock" unit="Hz" register={register} errors={errs} hint="Every schedule made for this rig is placed on this clock." />
         <Field name="channels" label="Output channels" register={register} errors={errs} />
       </div>
       {modality === 'optical' ? (
         <div className="grid gap-4 sm:grid-cols-3">
-          <Field name="wavelengthNm" label="Wavelength (nm)" register={register} errors={errs} step="any" />
-          <Field name="fibreCoreUm" label="Fibre core diameter (µm)" register={register} errors={errs} step="any" />
+          <Field name="wavelengthNm" label="Wavelength" unit="nm" register={register} errors={errs} step="any" />
+          <Field name="fibreCoreUm" label="Fibre core diameter" unit="µm" register={register} errors={errs} step="any" />
           <Field name="fibreNA" label="Fibre NA" register={register} errors={errs} step="any" />
         </div>
       ) : (
         <div className="grid gap-4 sm:grid-cols-2">
           <Field name="electrodeMaterial" label="Electrode material" register={register} errors={errs} type="text" />
-          <Field name="electrodeAreaMm2" label="Geometric area (mm²)" register={register} errors={errs} step="any" />
+          <Field name="electrodeAreaMm2" label="Geometric area" unit="mm²" register={register} errors={errs} step="any" />
         </div>
       )}
       <div>
@@ -93,9 +93,12 @@ function Field({
   type = 'number',
   step,
   hint,
+  unit,
 }: {
   name: string;
   label: string;
+  /** Shown in its own case: the label style capitalises, and µm must not read as MM. */
+  unit?: string;
   register: UseFormRegister<RigInput>;
   errors: FieldErrors<Record<string, unknown>>;
   type?: 'number' | 'text';
@@ -107,7 +110,10 @@ function Field({
   const described = [hint ? `${id}-hint` : null, err ? `${id}-err` : null].filter(Boolean).join(' ') || undefined;
   return (
     <div>
-      <label htmlFor={id} className="label">{label}</label>
+      <label htmlFor={id} className="label">
+        {label}
+        {unit ? <span className="normal-case"> ({unit})</span> : null}
+      </label>
       <input
         id={id}
         type={type}
