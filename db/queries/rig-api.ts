@@ -111,7 +111,8 @@ export type DownloadRecord = {
 
 /**
  * One approved version of the rig, read and — when `record` is given — audited in one
- * statement: a download costs the token lookup plus this, two round trips in all.
+ * statement: with the token remembered (lib/rig-api/token-cache.ts) a download is one
+ * round trip to the database.
  * The audit row is the one recordAudit would write; its action is
  * `rig.version_unchanged` when the request's If-None-Match holds the version's tag
  * (the same weak comparison as the response's 304), else `rig.version_downloaded`.
