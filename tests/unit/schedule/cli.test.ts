@@ -28,6 +28,14 @@ describe('pulseloom CLI', { timeout: 60_000 }, () => {
   const specPath = join(examples, 'optical-ramp-sine.json');
   const spec = JSON.parse(readFileSync(specPath, 'utf8')) as Spec;
 
+  it('ends quietly with exit 0 when the reader closes the pipe early (generate | head)', async () => {
+    const script = `"${process.execPath}" "${bin}" generate --csv "${specPath}" | head -n 2; echo "status=\${PIPESTATUS[0]}"`;
+    const r = await run('bash', ['-c', script], { cwd: root });
+    expect(r.stdout).toContain('# format: pulseloom-schedule/1');
+    expect(r.stdout).toContain('status=0');
+    expect(r.stderr).not.toMatch(/EPIPE|Error/);
+  });
+
   it('generate prints the schedule JSON; verify accepts it (exit 0); a moved pulse fails with the first difference (exit 1)', async () => {
     const g = await cli('generate', specPath, '--meta', 'protocol=vole-place-cells');
     expect(g.code).toBe(0);
