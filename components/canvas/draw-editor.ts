@@ -7,6 +7,7 @@ import { visibleBoundaries } from './model/hit';
 import type { EditorDoc } from './model/doc';
 import type { DocIssue } from './model/validate';
 import { canvasFont, palette } from '@/components/plots/palette';
+import { drawHLine } from '@/components/plots/axes';
 
 /**
  * Drawing for the editor's three layers. The canvas calls these from Konva scene
@@ -88,21 +89,7 @@ export function drawBackground(ctx: Context, vp: Viewport, r: PlotRect, limits: 
 
 function limitLine(ctx: Context, vp: Viewport, r: PlotRect, hz: number, color: string, label: string, dash: number[], side: 'left' | 'right') {
   if (!Number.isFinite(hz)) return;
-  const y = Math.round(hzToY(vp, r, hz)) + 0.5;
-  if (y < r.y || y > r.y + r.height) return;
-  ctx.setAttr('strokeStyle', color);
-  ctx.setAttr('lineWidth', 1.5);
-  ctx.setLineDash(dash);
-  ctx.beginPath();
-  ctx.moveTo(r.x, y);
-  ctx.lineTo(r.x + r.width, y);
-  ctx.stroke();
-  ctx.setLineDash([]);
-  ctx.setAttr('fillStyle', color);
-  ctx.setAttr('font', canvasFont('sans', 10, 600));
-  ctx.setAttr('textAlign', side);
-  ctx.setAttr('textBaseline', 'bottom');
-  ctx.fillText(label, side === 'right' ? r.x + r.width - 4 : r.x + 4, y - 2);
+  drawHLine(ctx, r, Math.round(hzToY(vp, r, hz)) + 0.5, color, label, dash, side);
 }
 
 export interface EnvelopeDrawState {
