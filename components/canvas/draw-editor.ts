@@ -7,7 +7,7 @@ import { visibleBoundaries } from './model/hit';
 import type { EditorDoc } from './model/doc';
 import type { DocIssue } from './model/validate';
 import { canvasFont, palette } from '@/components/plots/palette';
-import { drawHLine } from '@/components/plots/axes';
+import { drawFrameAndTickLabels, drawHLine } from '@/components/plots/axes';
 
 /**
  * Drawing for the editor's three layers. The canvas calls these from Konva scene
@@ -50,24 +50,14 @@ export function drawBackground(ctx: Context, vp: Viewport, r: PlotRect, limits: 
     ctx.fillRect(r.x, r.y, Math.min(x0, r.x + r.width) - r.x, r.height);
   }
 
-  ctx.setAttr('strokeStyle', palette.inkMuted);
-  ctx.beginPath();
-  ctx.moveTo(r.x + 0.5, r.y);
-  ctx.lineTo(r.x + 0.5, r.y + r.height + 0.5);
-  ctx.lineTo(r.x + r.width, r.y + r.height + 0.5);
-  ctx.stroke();
-
-  ctx.setAttr('fillStyle', palette.inkMuted);
-  ctx.setAttr('font', canvasFont('mono', 10));
-  ctx.setAttr('textAlign', 'center');
-  ctx.setAttr('textBaseline', 'top');
-  for (const t of xt.ticks) {
-    const x = timeToX(vp, r, t);
-    if (x >= r.x - 1 && x <= r.x + r.width + 1) ctx.fillText(formatTick(t, xt.step), x, r.y + r.height + 4);
-  }
-  ctx.setAttr('textAlign', 'right');
-  ctx.setAttr('textBaseline', 'middle');
-  for (const hz of yt.ticks) ctx.fillText(formatTick(hz, yt.step), r.x - 5, hzToY(vp, r, hz));
+  drawFrameAndTickLabels(
+    ctx,
+    r,
+    xt.ticks
+      .map((t) => ({ text: formatTick(t, xt.step), at: timeToX(vp, r, t) }))
+      .filter((l) => l.at >= r.x - 1 && l.at <= r.x + r.width + 1),
+    yt.ticks.map((hz) => ({ text: formatTick(hz, yt.step), at: hzToY(vp, r, hz) })),
+  );
 
   ctx.setAttr('fillStyle', palette.ink);
   ctx.setAttr('font', canvasFont('sans', 11, 500));

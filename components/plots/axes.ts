@@ -30,6 +30,27 @@ function ticksFor(a: AxisSpec) {
   return { step, ticks: t.ticks.filter((v) => Number.isInteger(v) && v % step === 0) };
 }
 
+export type TickLabel = { text: string; at: number };
+
+/** The L-shaped axis frame and the tick labels below and left of it; shared with the envelope editor. */
+export function drawFrameAndTickLabels(ctx: Context, r: PlotRect, xLabels: TickLabel[], yLabels: TickLabel[]) {
+  ctx.setAttr('strokeStyle', palette.inkMuted);
+  ctx.beginPath();
+  ctx.moveTo(r.x + 0.5, r.y);
+  ctx.lineTo(r.x + 0.5, r.y + r.height + 0.5);
+  ctx.lineTo(r.x + r.width, r.y + r.height + 0.5);
+  ctx.stroke();
+
+  ctx.setAttr('fillStyle', palette.inkMuted);
+  ctx.setAttr('font', canvasFont('mono', 10));
+  ctx.setAttr('textAlign', 'center');
+  ctx.setAttr('textBaseline', 'top');
+  for (const l of xLabels) ctx.fillText(l.text, l.at, r.y + r.height + 4);
+  ctx.setAttr('textAlign', 'right');
+  ctx.setAttr('textBaseline', 'middle');
+  for (const l of yLabels) ctx.fillText(l.text, r.x - 5, l.at);
+}
+
 /** Grid, axis lines, tick labels and axis titles with units. */
 export function drawAxes(ctx: Context, r: PlotRect, x: AxisSpec, y: AxisSpec, opts: { grid?: boolean } = {}) {
   const xt = ticksFor(x);
@@ -51,21 +72,12 @@ export function drawAxes(ctx: Context, r: PlotRect, x: AxisSpec, y: AxisSpec, op
     }
     ctx.stroke();
   }
-  ctx.setAttr('strokeStyle', palette.inkMuted);
-  ctx.beginPath();
-  ctx.moveTo(r.x + 0.5, r.y);
-  ctx.lineTo(r.x + 0.5, r.y + r.height + 0.5);
-  ctx.lineTo(r.x + r.width, r.y + r.height + 0.5);
-  ctx.stroke();
-
-  ctx.setAttr('fillStyle', palette.inkMuted);
-  ctx.setAttr('font', canvasFont('mono', 10));
-  ctx.setAttr('textAlign', 'center');
-  ctx.setAttr('textBaseline', 'top');
-  for (const v of xt.ticks) ctx.fillText(formatTick(v, xt.step), xOf(r, x, v), r.y + r.height + 4);
-  ctx.setAttr('textAlign', 'right');
-  ctx.setAttr('textBaseline', 'middle');
-  for (const v of yt.ticks) ctx.fillText(formatTick(v, yt.step), r.x - 5, yOf(r, y, v));
+  drawFrameAndTickLabels(
+    ctx,
+    r,
+    xt.ticks.map((v) => ({ text: formatTick(v, xt.step), at: xOf(r, x, v) })),
+    yt.ticks.map((v) => ({ text: formatTick(v, yt.step), at: yOf(r, y, v) })),
+  );
 
   ctx.setAttr('fillStyle', palette.ink);
   ctx.setAttr('font', canvasFont('sans', 11, 500));
