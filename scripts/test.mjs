@@ -2,7 +2,7 @@
 // browser tests in Debian's Chromium against a production build. Exits non-zero on any failure.
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureDependencies } from './lib/deps.mjs';
 import { ensurePostgresInstalled, removeCluster, startCluster } from './lib/pg.mjs';
@@ -60,12 +60,45 @@ function cleanup() {
 process.on('SIGINT', () => (cleanup(), process.exit(130)));
 process.on('SIGTERM', () => (cleanup(), process.exit(143)));
 
+const firstLine = (text) => String(text ?? '').replace(/\x1b\[[0-9;]*m/g, '').split('\n').find((l) => l.trim())?.trim().slice(0, 200) ?? '';
+
+/** Names of failed tests with the first line of their message, so the tail of a CI log says what broke. */
+function failures(r, kind) {
+  const out = [];
+  if (kind === 'vitest') {
+    for (const f of r.testResults ?? []) {
+      const file = relative(root, f.name);
+      const failedTests = (f.assertionResults ?? []).filter((a) => a.status === 'failed');
+      for (const a of failedTests) out.push(`${file} › ${a.fullName ?? a.title}: ${firstLine(a.failureMessages?.[0])}`);
+      if (!failedTests.length && f.status === 'failed') out.push(`${file}: ${firstLine(f.message)}`);
+    }
+    return out;
+  }
+  const walk = (suite, path) => {
+    for (const spec of suite.specs ?? []) {
+      for (const t of spec.tests ?? []) {
+        if (t.status === 'unexpected' || t.status === 'flaky') {
+          const err = t.results?.find((x) => x.error)?.error;
+          out.push(`${spec.file} › ${[...path, spec.title].join(' › ')}: ${firstLine(err?.message)}`);
+        }
+      }
+    }
+    for (const child of suite.suites ?? []) walk(child, suite.title && !suite.title.endsWith('.ts') ? [...path, suite.title] : path);
+  };
+  try {
+    for (const s of r.suites ?? []) walk(s, []);
+  } catch {
+    // A report shape we do not know only costs the list of names, never the summary.
+  }
+  return out;
+}
+
 function counts(file, kind) {
   if (!existsSync(file)) return null;
   const r = JSON.parse(readFileSync(file, 'utf8'));
-  if (kind === 'vitest') return { passed: r.numPassedTests, failed: r.numFailedTests, skipped: r.numPendingTests + r.numTodoTests };
+  if (kind === 'vitest') return { passed: r.numPassedTests, failed: r.numFailedTests, skipped: r.numPendingTests + r.numTodoTests, failures: failures(r, kind) };
   const s = r.stats; // playwright
-  return { passed: s.expected, failed: s.unexpected + (s.flaky ?? 0), skipped: s.skipped };
+  return { passed: s.expected, failed: s.unexpected + (s.flaky ?? 0), skipped: s.skipped, failures: failures(r, kind) };
 }
 
 function layer(name, cmd, args, report, kind, extraEnv = {}) {
@@ -114,6 +147,7 @@ let failed = 0;
 let skipped = 0;
 for (const r of results) {
   console.log(`${r.status === 0 ? 'ok  ' : 'FAIL'} ${r.name.padEnd(26)} ${r.passed} passed, ${r.failed} failed${r.skipped ? `, ${r.skipped} skipped` : ''}`);
+  for (const f of r.failures ?? []) console.log(`     ✗ ${f}`);
   passed += r.passed;
   failed += r.failed;
   skipped += r.skipped;

@@ -38,7 +38,10 @@ describe('compareSchedules', () => {
     expect(r.cutAtS).not.toBeNull();
     expect(r.cutAtS!).toBeLessThan(86_400);
     const t = r.trials[0]!;
-    for (const s of [...t.unchanged, ...t.removed, ...t.added]) expect(s).toBeLessThan(r.cutAtS!);
+    // One assertion over all onsets: an expect per onset (~400 000) costs seconds.
+    const shown = [...t.unchanged, ...t.removed, ...t.added];
+    expect(shown.length).toBeGreaterThan(0);
+    expect(shown.filter((s) => !(s < r.cutAtS!))).toEqual([]);
     // Same seed against itself: cut at the same point, all shared.
     const same = compareSchedules(a, a).trials[0]!;
     expect(same.removed.length + same.added.length).toBe(0);
