@@ -77,7 +77,7 @@ export class ByteWriter {
 }
 
 /** "00".."99" as ASCII pairs: two digits per division. */
-const PAIRS = (() => {
+export const PAIRS = (() => {
   const t = new Uint8Array(200);
   for (let i = 0; i < 100; i++) {
     t[2 * i] = 48 + ((i / 10) | 0);

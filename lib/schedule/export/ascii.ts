@@ -1,5 +1,5 @@
 /** Text helpers for the exporters: bytes of fixed strings, and onset seconds written without String(). */
-import { ByteWriter, putUint, wordsOf } from '../bytes';
+import { ByteWriter, PAIRS, putUint, wordsOf } from '../bytes';
 
 export { ByteWriter };
 
@@ -61,13 +61,30 @@ export function writeSeconds(w: ByteWriter, sample: number, clockHz: number, pla
   for (let i = 0; i < s.length; i++) w.buf[w.pos++] = s.charCodeAt(i);
 }
 
+/** Scratch for one row's digits, read back as 32-bit words: index and comma, the sample, the scaled onset. */
+const SCRATCH = new Uint8Array(96);
+const SV = new DataView(SCRATCH.buffer);
+const IB = 0; // pulse_index digits then ',', left-aligned
+const SB = 32; // sample digits, left-aligned
+const VB = 64; // sample·scale digits, left-aligned
+const ZEROS = 0x30303030; // "0000"
+/** Largest value the int32 digit loop takes. */
+const INT_DIGITS = 2147483647;
+
+/** Decimal digits of 0 ≤ x ≤ 2^31 − 1. */
+function digitCount(x: number): number {
+  return x < 10 ? 1 : x < 100 ? 2 : x < 1e3 ? 3 : x < 1e4 ? 4 : x < 1e5 ? 5 : x < 1e6 ? 6 : x < 1e7 ? 7 : x < 1e8 ? 8 : x < 1e9 ? 9 : 10;
+}
+
 /**
  * CSV rows `<trial>,<index>,<onset_s>,<onset_sample><suffix>` straight into bytes.
- * onset_s is written as integer part, '.', and the fraction's digits without trailing
- * zeros, from the integer sample·scale (no String, no float formatting); clocks
- * without a finite decimal period (e.g. 30 kHz) fall back to writeSeconds. The
- * constant prefix and suffix go in as 32-bit words; a word may run up to 3 bytes past
- * the constant, into room that the next field overwrites or that lies beyond `pos`.
+ *
+ * Each number's digits are made once in a scratch buffer and copied out as 32-bit words
+ * (a copy may run past the field; what follows overwrites it). onset_s is the digits of
+ * sample·scale (an integer) with a '.' put `places` from the right and trailing zeros
+ * dropped; when the clock is a power of ten those are the sample's own digits.
+ * pulse_index is an ASCII counter, incremented in place. Clocks without a finite
+ * decimal period (e.g. 30 kHz) and values past 2^31 take writeSeconds / putUint.
  */
 export function writeRows(
   w: ByteWriter,
@@ -79,53 +96,120 @@ export function writeRows(
   clockHz: number,
   plan: DecimalPlan | null,
 ): void {
-  w.ensure(length * (prefix.length + suffix.length + 64) + 8);
+  w.ensure(length * (prefix.length + suffix.length + 64) + 16);
   const b = w.buf;
   const view = new DataView(b.buffer, b.byteOffset, b.byteLength);
   const pre = wordsOf(prefix);
   const suf = wordsOf(suffix);
   const preLen = prefix.length;
   const sufLen = suffix.length;
-  let p = w.pos;
+  const sc = SCRATCH;
+  const sv = SV;
+  let il = putUint(sc, IB, firstIndex);
+  sc[il] = 44;
   const places = plan ? plan.places : 0;
   const scale = plan ? plan.scale : 1;
-  const pow10 = plan ? plan.pow10 : 1;
+  const same = scale === 1;
   const minV = plan ? plan.pow10 * 1e-6 : 0;
+  let p = w.pos;
   for (let i = 0; i < length; i++) {
     const s = samples[i];
     for (let k = 0; k < pre.length; k++) view.setUint32(p + 4 * k, pre[k], true);
     p += preLen;
-    p = putUint(b, p, firstIndex + i);
-    b[p++] = 44;
+    // "<index>," from the counter: up to 16 digits and the comma.
+    view.setUint32(p, sv.getUint32(IB, true), true);
+    view.setUint32(p + 4, sv.getUint32(IB + 4, true), true);
+    if (il > 7) {
+      view.setUint32(p + 8, sv.getUint32(IB + 8, true), true);
+      view.setUint32(p + 12, sv.getUint32(IB + 12, true), true);
+      view.setUint32(p + 16, sv.getUint32(IB + 16, true), true);
+    }
+    p += il + 1;
+    let q = il - 1;
+    while (q >= 0 && sc[q] === 57) sc[q--] = 48;
+    if (q >= 0) sc[q]++;
+    else {
+      sc.copyWithin(1, 0, il);
+      sc[0] = 49;
+      il++;
+      sc[il] = 44;
+    }
+
     const v = s * scale;
-    if (plan && v < FAST_LIMIT && (v === 0 || v >= minV)) {
-      const ip = Math.floor(v / pow10);
-      p = putUint(b, p, ip);
-      const f = v - ip * pow10;
-      if (f > 0) {
-        let width = places;
-        let q = f | 0;
-        let y = (q / 10) | 0;
-        while (q === y * 10) {
-          q = y;
-          y = (q / 10) | 0;
-          width--;
-        }
-        b[p++] = 46; // '.'
-        p += width;
-        for (let k = 1; k <= width; k++) {
-          y = (q / 10) | 0;
-          b[p - k] = 48 + q - y * 10;
-          q = y;
-        }
+    if (plan !== null && v <= INT_DIGITS && (v >= minV || v === 0)) {
+      // The sample's digits at sc[SB, SB + sl).
+      let x = s | 0;
+      const sl = digitCount(x);
+      let e = SB + sl;
+      while (x >= 100) {
+        const y = (x / 100) | 0;
+        const r = (x - y * 100) << 1;
+        sc[--e] = PAIRS[r + 1];
+        sc[--e] = PAIRS[r];
+        x = y;
       }
+      if (x >= 10) {
+        sc[--e] = PAIRS[(x << 1) + 1];
+        sc[--e] = PAIRS[x << 1];
+      } else sc[--e] = 48 + x;
+      // The scaled onset's digits at sc[ob, ob + ol): the same ones when scale is 1.
+      let ob = SB;
+      let ol = sl;
+      if (!same) {
+        x = v | 0;
+        ob = VB;
+        ol = digitCount(x);
+        e = VB + ol;
+        while (x >= 100) {
+          const y = (x / 100) | 0;
+          const r = (x - y * 100) << 1;
+          sc[--e] = PAIRS[r + 1];
+          sc[--e] = PAIRS[r];
+          x = y;
+        }
+        if (x >= 10) {
+          sc[--e] = PAIRS[(x << 1) + 1];
+          sc[--e] = PAIRS[x << 1];
+        } else sc[--e] = 48 + x;
+      }
+      // Integer part: the digits before the last `places`, or "0".
+      const il2 = ol - places;
+      let fs = ob;
+      if (il2 > 0) {
+        view.setUint32(p, sv.getUint32(ob, true), true);
+        view.setUint32(p + 4, sv.getUint32(ob + 4, true), true);
+        if (il2 > 8) view.setUint32(p + 8, sv.getUint32(ob + 8, true), true);
+        p += il2;
+        fs = ob + il2;
+      } else b[p++] = 48;
+      // Fraction: drop trailing zeros; "0" alone when nothing is left.
+      let fe = ob + ol;
+      while (fe > fs && sc[fe - 1] === 48) fe--;
+      if (fe > fs) {
+        b[p++] = 46; // '.'
+        if (il2 < 0) {
+          view.setUint32(p, ZEROS, true);
+          view.setUint32(p + 4, ZEROS, true);
+          view.setUint32(p + 8, ZEROS, true);
+          p -= il2;
+        }
+        view.setUint32(p, sv.getUint32(fs, true), true);
+        view.setUint32(p + 4, sv.getUint32(fs + 4, true), true);
+        view.setUint32(p + 8, sv.getUint32(fs + 8, true), true);
+        p += fe - fs;
+      }
+      b[p++] = 44;
+      view.setUint32(p, sv.getUint32(SB, true), true);
+      view.setUint32(p + 4, sv.getUint32(SB + 4, true), true);
+      view.setUint32(p + 8, sv.getUint32(SB + 8, true), true);
+      p += sl;
     } else {
       w.pos = p;
-      writeSeconds(w, s, clockHz, null);
+      writeSeconds(w, s, clockHz, plan);
       p = w.pos;
+      b[p++] = 44;
+      p = putUint(b, p, s);
     }
-    b[p++] = 44;
-    p = putUint(b, p, s);
     for (let k = 0; k < suf.length; k++) view.setUint32(p + 4 * k, suf[k], true);
     p += sufLen;
   }

@@ -129,6 +129,20 @@ describe('CSV row bytes', () => {
       { numRuns: 400, seed: 8 },
     );
   });
+
+  it('equal rows built with String() at digit-count edges of the index and the onset', () => {
+    const clocks = [1, 1000, 10_000, 20_000, 25_000, 30_000, 1_000_000, 12_500_000, 100_000_000];
+    const edges = [0, 1, 5, 9, 10, 99, 100, 999, 1000, 9999, 10_000, 10_001, 99_999, 100_000, 2 ** 31 - 1, 2 ** 31, 2 ** 32 + 7, 8_640_000_000_000];
+    for (const clk of clocks) {
+      for (const first of [0, 8, 95, 999_990, 9_999_995, 99_999_990, 999_999_999_995]) {
+        const samples = Float64Array.from(edges);
+        const w = new ByteWriter(16);
+        writeRows(w, ascii('12,'), ascii(',5,mW,,,,A1\n'), samples, samples.length, first, clk, decimalPlan(clk));
+        const want = [...samples].map((s, i) => `12,${first + i},${s / clk},${s},5,mW,,,,A1\n`).join('');
+        expect(new TextDecoder().decode(w.take())).toBe(want);
+      }
+    }
+  });
 });
 
 describe('JSON export', () => {
