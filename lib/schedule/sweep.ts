@@ -37,6 +37,9 @@ export * from './sweep-state';
  * Hot loop: no allocation, Alea stepped on locals, the segment index only moves forward,
  * and per cell a [lo, hi] bound of ρ (padded for rounding) settles most candidates
  * without evaluating ρ — the decision is still exactly "y < ρ(t)" as computed below.
+ * Two phases: thinning fills one array with every cell's survivors (each cell sorted,
+ * cells in order, so the whole array is in time order); then one loop applies the
+ * rules that look back, with no per-cell restart.
  */
 export function sweepBlock(
   c: Compiled,
@@ -53,7 +56,7 @@ export function sweepBlock(
   const { starts, kind, c0, c1, c2, c3, pad, ceilingHz, clockHz, absoluteS, recoveryS } = c;
   const { refractoryTicks, maxRateTicks, windowTicks, windowMax, cellsPerBlock, cellS, cellCdf, cellGuide, spanCells } = c;
   const lastSeg = c.nSegments - 1;
-  const { pos, ys, rhos } = scratchFor(cellCdf.length);
+  let { pos, ys, rhos } = scratchFor(4 * cellsPerBlock + 64);
   const ring = state.ring;
   let ringCount = state.ringCount;
   let ringHead = state.ringHead;
@@ -76,8 +79,8 @@ export function sweepBlock(
   let spanSeg = -1;
   let lo = -Infinity;
   let hi = Infinity;
-  let mid = 0;
-  let half = Infinity;
+  let midU = 0;
+  let halfU = Infinity;
 
   let candidates = 0;
   let thinned = 0;
@@ -86,6 +89,7 @@ export function sweepBlock(
   let maxRate = 0;
   let window = 0;
   let kept = 0;
+  let m = 0;
 
   for (let j = 0; j < cellsPerBlock; j++) {
     const cs = t0 + j * cellS;
@@ -101,10 +105,7 @@ export function sweepBlock(
     let n = cellGuide[(a2 * GUIDE_SIZE) | 0];
     while (a2 >= cellCdf[n]) n++;
     if (n === 0) continue;
-    if (outLen + n > outData.length) {
-      out.length = outLen;
-      outData = out.reserve(n);
-    }
+    if (m + n > pos.length) ({ pos, ys, rhos } = growScratch(m + n));
 
     // The segment the cell starts in.
     while (seg < lastSeg && cs >= segEnd) {
@@ -156,17 +157,19 @@ export function sweepBlock(
           hi = c0[seg] + c1[seg] * smax + pad[seg];
         }
       }
-      mid = 0;
-      half = Infinity;
+      midU = 0;
+      halfU = Infinity;
       if (hi !== Infinity) {
-        mid = 0.5 * (lo + hi);
-        half = 0.5 * (hi - lo) + 1e-9 * (Math.abs(lo) + Math.abs(hi) + 1);
+        const mid = 0.5 * (lo + hi);
+        const half = 0.5 * (hi - lo) + 1e-9 * (Math.abs(lo) + Math.abs(hi) + 1);
+        midU = mid / ceilingHz;
+        halfU = (half / ceilingHz) * (1 + 1e-9) + 1e-12;
       }
     }
 
     // Candidates in draw order: u → position, u → height. Thinning does not depend on
     // history, so it runs before sorting; only survivors are sorted into time order.
-    let m = 0;
+    const m0 = m;
     if (recoveryS > 0) {
       for (let i = 0; i < n; i++) {
         x = 2091639 * a0 + ac * 2.3283064365386963e-10;
@@ -200,49 +203,80 @@ export function sweepBlock(
         rhos[m] = rho;
         m++;
       }
-      sortSurvivors(pos, ys, rhos, m);
+      sortSurvivors(pos, ys, rhos, m0, m);
     } else {
       // No relative refractoriness: ρ(t) is needed only for heights inside [lo, hi).
-      // Outside it the bound decides, and "y < hi" is taken without a branch, since it
-      // is a coin flip the branch predictor would miss half the time. The band test
-      // |y − mid| ≤ half is widened for rounding: it may send a few more candidates to
-      // the exact test, never fewer.
-      let cellCandidates = 0;
-      for (let i = 0; i < n; i++) {
-        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
-        a0 = a1;
-        a1 = a2;
-        ac = Math.trunc(x);
-        a2 = x - ac;
-        const t = cs + a2 * cellS;
-        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
-        a0 = a1;
-        a1 = a2;
-        ac = Math.trunc(x);
-        a2 = x - ac;
-        if (t >= t1) continue;
-        const y = a2 * ceilingHz;
-        cellCandidates++;
-        pos[m] = t;
-        if (Math.abs(y - mid) <= half) {
+      // Outside it the bound decides. Every widening of the band for rounding may send
+      // a few more candidates to the exact test, never fewer.
+      let cellCandidates = n;
+      if (cs + cellS < t1) {
+        // The whole cell lies before t1: no position check. The band test is done on the
+        // uniform itself (midU, halfU: the band over ceilingHz, widened for rounding), so
+        // a height is computed only inside it; outside, "u < midU" is the decision, as a
+        // flag, not a branch: it is a coin flip a branch would mispredict.
+        for (let i = 0; i < n; i++) {
+          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          a0 = a1;
+          a1 = a2;
+          ac = Math.trunc(x);
+          a2 = x - ac;
+          pos[m] = cs + a2 * cellS;
+          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          a0 = a1;
+          a1 = a2;
+          ac = Math.trunc(x);
+          a2 = x - ac;
+          if (Math.abs(a2 - midU) <= halfU) {
+            const t = pos[m];
+            const y = a2 * ceilingHz;
+            let sg = seg;
+            while (sg < lastSeg && t >= starts[sg + 1]) sg++;
+            const local = t - starts[sg];
+            const rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
+            if (y < rho) m++;
+          } else {
+            m += bit(a2 < midU);
+          }
+        }
+      } else {
+        // The cell reaching t1 (the end of a short last block): exact test for every candidate.
+        cellCandidates = 0;
+        for (let i = 0; i < n; i++) {
+          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          a0 = a1;
+          a1 = a2;
+          ac = Math.trunc(x);
+          a2 = x - ac;
+          const t = cs + a2 * cellS;
+          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          a0 = a1;
+          a1 = a2;
+          ac = Math.trunc(x);
+          a2 = x - ac;
+          if (t >= t1) continue;
+          const y = a2 * ceilingHz;
+          cellCandidates++;
+          pos[m] = t;
           let sg = seg;
           while (sg < lastSeg && t >= starts[sg + 1]) sg++;
           const local = t - starts[sg];
           const rho = kind[sg] === 0 ? c0[sg] + c1[sg] * (local / c2[sg]) : c0[sg] + c1[sg] * Math.sin(c2[sg] * local + c3[sg]);
           if (y < rho) m++;
-        } else {
-          // Outside the band the bound decides. A flag, not a branch: the outcome is a
-          // coin flip a branch would mispredict.
-          m += bit(y < hi);
         }
       }
       candidates += cellCandidates;
-      thinned += cellCandidates - m;
-      sortTimes(pos, m);
+      thinned += cellCandidates - (m - m0);
+      sortTimes(pos, m0, m);
     }
+  }
 
-    // Survivors in time order through the rules that depend on earlier pulses.
-    for (let i = 0; i < m; i++) {
+  // Survivors of the whole block, in time order (cells are disjoint and each is sorted),
+  // through the rules that depend on earlier pulses.
+  if (outLen + m > outData.length) {
+    out.length = outLen;
+    outData = out.reserve(m);
+  }
+  for (let i = 0; i < m; i++) {
       const t = pos[i];
       const since = t - lastOnset;
       if (since < absoluteS || (recoveryS > 0 && ys[i] >= rhos[i] * (1 - Math.exp(-(since - absoluteS) / recoveryS)))) {
@@ -277,7 +311,6 @@ export function sweepBlock(
       kept++;
       lastSample = smp;
       lastOnset = smp / clockHz;
-    }
   }
 
   out.length = outLen;
@@ -322,8 +355,20 @@ function boundSin(th: number): number {
 }
 
 let scratch = { pos: new Float64Array(64), ys: new Float64Array(64), rhos: new Float64Array(64) };
+/** Survivor arrays with room for n: reused block after block (the block's survivors live here). */
 function scratchFor(n: number) {
   if (scratch.pos.length < n) scratch = { pos: new Float64Array(n), ys: new Float64Array(n), rhos: new Float64Array(n) };
+  return scratch;
+}
+
+/** Room for n, keeping what is stored (a block with more survivors than expected). */
+function growScratch(n: number) {
+  const old = scratch;
+  const size = Math.max(n, 2 * old.pos.length);
+  scratch = { pos: new Float64Array(size), ys: new Float64Array(size), rhos: new Float64Array(size) };
+  scratch.pos.set(old.pos);
+  scratch.ys.set(old.ys);
+  scratch.rhos.set(old.rhos);
   return scratch;
 }
 
@@ -339,13 +384,13 @@ function segmentAt(starts: Float64Array, n: number, t: number): number {
 }
 
 /** Insertion sort of the few survivors of a cell by time, carrying height and ρ along. */
-function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, m: number): void {
-  for (let i = 1; i < m; i++) {
+function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, from: number, m: number): void {
+  for (let i = from + 1; i < m; i++) {
     const t = pos[i];
     const y = ys[i];
     const r = rhos[i];
     let k = i;
-    while (k > 0 && pos[k - 1] > t) {
+    while (k > from && pos[k - 1] > t) {
       pos[k] = pos[k - 1];
       ys[k] = ys[k - 1];
       rhos[k] = rhos[k - 1];
@@ -360,22 +405,22 @@ function sortSurvivors(pos: Float64Array, ys: Float64Array, rhos: Float64Array, 
 const pair = new Float64Array(2);
 
 /** Insertion sort of the few survivors of a cell by time. */
-function sortTimes(pos: Float64Array, m: number): void {
-  if (m === 2) {
+function sortTimes(pos: Float64Array, from: number, m: number): void {
+  if (m - from === 2) {
     // The commonest case, without a data-dependent branch.
-    const a = pos[0];
-    const b = pos[1];
+    const a = pos[from];
+    const b = pos[from + 1];
     const swap = bit(b < a);
     pair[0] = a;
     pair[1] = b;
-    pos[0] = pair[swap];
-    pos[1] = pair[swap ^ 1];
+    pos[from] = pair[swap];
+    pos[from + 1] = pair[swap ^ 1];
     return;
   }
-  for (let i = 1; i < m; i++) {
+  for (let i = from + 1; i < m; i++) {
     const t = pos[i];
     let k = i;
-    while (k > 0 && pos[k - 1] > t) {
+    while (k > from && pos[k - 1] > t) {
       pos[k] = pos[k - 1];
       k--;
     }
