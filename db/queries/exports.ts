@@ -12,6 +12,7 @@ export async function getVersionForExport({ labId, versionId }: { labId: string;
       spec: protocolVersions.spec,
       checksum: protocolVersions.checksum,
       approvedChecksum: protocolVersions.approvedChecksum,
+      pulseCount: protocolVersions.pulseCount,
       decidedAt: protocolVersions.decidedAt,
       rigId: protocolVersions.rigId,
       protocol: protocols.name,

@@ -128,6 +128,7 @@ export async function takeApprovedForRig(a: { labId: string; rigId: string; vers
       id: string;
       number: number;
       checksum: string;
+      pulse_count: string | number | null;
       decided_at: string | Date | null;
       protocol: string;
       approver_name: string | null;
@@ -136,7 +137,7 @@ export async function takeApprovedForRig(a: { labId: string; rigId: string; vers
     }[]
   >`
     with v as (
-      select pv.id, pv.number, pv.approved_checksum as checksum, pv.decided_at, p.name as protocol,
+      select pv.id, pv.number, pv.approved_checksum as checksum, pv.pulse_count, pv.decided_at, p.name as protocol,
              u.name as approver_name, u.email as approver_email
       from protocol_versions pv
       join protocols p on p.id = pv.protocol_id and p.lab_id = pv.lab_id
@@ -159,6 +160,7 @@ export async function takeApprovedForRig(a: { labId: string; rigId: string; vers
     id: row.id,
     number: row.number,
     checksum: row.checksum,
+    pulseCount: row.pulse_count === null ? null : Number(row.pulse_count),
     decidedAt: row.decided_at === null ? null : new Date(row.decided_at),
     protocol: row.protocol,
     approverName: row.approver_name,

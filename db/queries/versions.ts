@@ -261,6 +261,7 @@ export async function updateDraft(
 type TransitionSet = {
   status: VersionStatus;
   checksum?: string;
+  pulseCount?: number | null;
   justification?: string | null;
   submittedAt?: Date;
   decidedBy?: string;

@@ -1,4 +1,5 @@
 import {
+  bigint,
   index,
   integer,
   jsonb,
@@ -78,6 +79,9 @@ export const protocolVersions = pgTable(
     rigId: uuid('rig_id').references(() => rigs.id, { onDelete: 'restrict' }),
     // sha256:<hex> of the schedule, from the engine manifest, stored at submission.
     checksum: text('checksum'),
+    // Pulses in the schedule, stored with the checksum: exports of the version then need
+    // no counting pass (they check the pulses against both as they stream).
+    pulseCount: bigint('pulse_count', { mode: 'number' }),
     justification: text('justification'),
     authorId: uuid('author_id').references(() => users.id, { onDelete: 'set null' }),
     submittedAt: timestamp('submitted_at', { withTimezone: true }),

@@ -65,7 +65,7 @@ async function thetaLight(ctx: SeedContext, labId: string) {
   await ctx.tx.insert(schema.protocolRigs).values({ labId, protocolId: protocol!.id, rigId });
 
   const v1Spec = specFor(optical, 10_000);
-  const checksum = scanSchedule(v1Spec).checksum;
+  const { checksum, pulseCount } = scanSchedule(v1Spec);
   const submittedAt = new Date(Date.now() - 6 * DAY);
   const decidedAt = new Date(Date.now() - 5 * DAY);
   const [v1] = await ctx.tx
@@ -78,6 +78,7 @@ async function thetaLight(ctx: SeedContext, labId: string) {
       spec: v1Spec,
       rigId,
       checksum,
+      pulseCount,
       justification: 'Sessions run three minutes per trial to cover the whole track lap; the mean power stays far below the limit.',
       authorId: author,
       submittedAt,
@@ -134,7 +135,7 @@ async function hvcMicrostim(ctx: SeedContext, labId: string) {
     .returning({ id: schema.protocols.id });
   await ctx.tx.insert(schema.protocolRigs).values({ labId, protocolId: protocol!.id, rigId });
   const spec = specFor(electrical, 30_000);
-  const checksum = scanSchedule(spec).checksum;
+  const { checksum, pulseCount } = scanSchedule(spec);
   const submittedAt = new Date(Date.now() - 1 * DAY);
   const [v1] = await ctx.tx
     .insert(schema.protocolVersions)
@@ -146,6 +147,7 @@ async function hvcMicrostim(ctx: SeedContext, labId: string) {
       spec,
       rigId,
       checksum,
+      pulseCount,
       justification: 'Three-minute trains match one song bout session; charge density is at the warning level only on the smallest electrode.',
       authorId: author,
       submittedAt,

@@ -2,13 +2,13 @@
  * Schedule files as HTTP bodies: the engine's CSV/JSON writers turned into a byte stream,
  * with the bytes of approved versions kept in the cache on the way through.
  */
-import { csvLines, jsonChunks, parseSpec, type ScheduleMeta, type Spec } from '@/lib/schedule';
+import { csvBytes, jsonBytes, parseSpec, type KnownSchedule, type ScheduleMeta, type Spec } from '@/lib/schedule';
 import { AppError } from '@/lib/http/errors';
 import { scheduleCache, type ByteLru } from './cache';
 import type { ScheduleFormat } from './format';
 
-/** Encoded pieces are gathered to about this size: fewer, larger writes to the socket. */
-const CHUNK_CHARS = 64 * 1024;
+/** Pieces are gathered to about this size: fewer, larger writes to the socket. */
+const CHUNK_BYTES = 64 * 1024;
 
 /** A stored spec read back through the engine's schema; a bad one is a 422 with its paths. */
 export function storedSpec(raw: unknown): Spec {
@@ -19,8 +19,13 @@ export function storedSpec(raw: unknown): Spec {
   return parsed.spec;
 }
 
-export function scheduleChunks(spec: Spec, meta: ScheduleMeta, format: ScheduleFormat): Generator<string, void, undefined> {
-  return format === 'csv' ? csvLines(spec, meta) : jsonChunks(spec, meta);
+/**
+ * The file's bytes as the engine writes them. `known` (the checksum and pulse count stored
+ * with the version) saves the engine its counting pass; it then checks the pulses against
+ * them and throws before the last chunk if they differ.
+ */
+export function scheduleChunks(spec: Spec, meta: ScheduleMeta, format: ScheduleFormat, known?: KnownSchedule): Generator<Uint8Array, void, undefined> {
+  return format === 'csv' ? csvBytes(spec, meta, { known }) : jsonBytes(spec, meta, { known });
 }
 
 function concat(parts: Uint8Array[], total: number): Uint8Array {
@@ -34,8 +39,10 @@ function concat(parts: Uint8Array[], total: number): Uint8Array {
 }
 
 /**
- * A pull stream over string chunks: the next piece is generated only when the socket
+ * A pull stream over byte chunks: the next piece is generated only when the socket
  * has taken the previous one, so memory holds one engine block and one 64 KB piece.
+ * An error while generating (e.g. the pulses disagree with the stored checksum) ends
+ * the response unfinished, so the rig never receives a complete-looking wrong file.
  * `keep` receives the whole file at the end if it stayed under `keepLimit` bytes.
  *
  * The first chunk is produced before the stream exists (the writers validate the spec
@@ -43,26 +50,36 @@ function concat(parts: Uint8Array[], total: number): Uint8Array {
  * a proper error response instead of a cut-off download.
  */
 export function byteStream(
-  chunks: Generator<string, void, undefined>,
+  chunks: Generator<Uint8Array, void, undefined>,
   keep?: { limit: number; done: (bytes: Uint8Array) => void },
 ): ReadableStream<Uint8Array> {
-  const encoder = new TextEncoder();
   const first = chunks.next();
   let pending = first.done ? null : first.value;
   let parts: Uint8Array[] | null = keep ? [] : null;
   let total = 0;
+  let finished = first.done === true;
   return new ReadableStream<Uint8Array>({
     pull(controller) {
-      let text = pending ?? '';
+      const gathered: Uint8Array[] = pending ? [pending] : [];
+      let size = pending?.byteLength ?? 0;
       pending = null;
-      let finished = first.done === true;
-      while (!finished && text.length < CHUNK_CHARS) {
-        const r = chunks.next();
-        if (r.done) finished = true;
-        else text += r.value;
+      try {
+        while (!finished && size < CHUNK_BYTES) {
+          const r = chunks.next();
+          if (r.done) finished = true;
+          else {
+            gathered.push(r.value);
+            size += r.value.byteLength;
+          }
+        }
+      } catch (err) {
+        console.error(`pulseloom: schedule stream stopped: ${err instanceof Error ? err.message : String(err)}`);
+        parts = null;
+        controller.error(err);
+        return;
       }
-      if (text.length > 0) {
-        const bytes = encoder.encode(text);
+      if (size > 0) {
+        const bytes = gathered.length === 1 ? gathered[0]! : concat(gathered, size);
         if (parts) {
           total += bytes.byteLength;
           if (total > keep!.limit) parts = null;
@@ -92,7 +109,7 @@ export function fromCache(key: string, cache: ByteLru = scheduleCache): Schedule
 }
 
 /** A stream of a freshly rendered file that fills the cache when it completes. */
-export function renderIntoCache(key: string, chunks: Generator<string, void, undefined>, cache: ByteLru = scheduleCache): ScheduleBody {
+export function renderIntoCache(key: string, chunks: Generator<Uint8Array, void, undefined>, cache: ByteLru = scheduleCache): ScheduleBody {
   const body = byteStream(chunks, { limit: cache.maxEntryBytes, done: (bytes) => cache.set(key, bytes) });
   return { body, length: null, fromCache: false };
 }
@@ -100,7 +117,7 @@ export function renderIntoCache(key: string, chunks: Generator<string, void, und
 /** Cached bytes when present; otherwise a stream that fills the cache when it completes. */
 export function cachedScheduleBody(
   key: string,
-  render: () => Generator<string, void, undefined>,
+  render: () => Generator<Uint8Array, void, undefined>,
   cache: ByteLru = scheduleCache,
 ): ScheduleBody {
   return fromCache(key, cache) ?? renderIntoCache(key, render(), cache);

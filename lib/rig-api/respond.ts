@@ -17,6 +17,8 @@ export type ApprovedFile = {
   id: string;
   number: number;
   checksum: string;
+  /** Stored with the checksum at submission (null for versions from before it was kept). */
+  pulseCount?: number | null;
   decidedAt: Date | null;
   protocol: string;
   approverName: string | null;
@@ -70,8 +72,9 @@ export function planApprovedFile(
       };
       if (request.method === 'HEAD') return new Response(null, { status: 200, headers });
       const key = cacheKey(v.id, v.checksum, format);
+      const known = v.pulseCount == null ? undefined : { checksum: v.checksum, pulseCount: v.pulseCount };
       const file =
-        fromCache(key) ?? renderIntoCache(key, scheduleChunks(storedSpec(await loadSpec()), approvedMeta(v), format));
+        fromCache(key) ?? renderIntoCache(key, scheduleChunks(storedSpec(await loadSpec()), approvedMeta(v), format, known));
       if (file.length !== null) headers['Content-Length'] = String(file.length);
       return new Response(file.body as BodyInit, { status: 200, headers });
     },

@@ -33,7 +33,7 @@ export function sampleFile(format: ScheduleFormat): Rendered {
   let r = rendered.get(format);
   if (!r) {
     checksum ??= scanSchedule(SAMPLE_SPEC).checksum;
-    const bytes = new TextEncoder().encode([...scheduleChunks(SAMPLE_SPEC, { ...SAMPLE_META }, format)].join(''));
+    const bytes = Buffer.concat([...scheduleChunks(SAMPLE_SPEC, { ...SAMPLE_META }, format)]);
     r = {
       bytes,
       etag: entityTag(checksum),

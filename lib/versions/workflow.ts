@@ -244,7 +244,7 @@ export async function submitVersion(member: Member, input: SubmitInput, ctx: Req
       { path: 'justification', message: 'Write why the warning-level values are needed' },
     ]);
   }
-  const { checksum } = scanSchedule(spec);
+  const { checksum, pulseCount } = scanSchedule(spec);
   const warnings = sheet.rows.filter((r) => r.status === 'warn').map((r) => r.id);
 
   return db.transaction(async (tx) => {
@@ -253,7 +253,7 @@ export async function submitVersion(member: Member, input: SubmitInput, ctx: Req
       versionId: v.id,
       revision: input.revision,
       from: 'draft',
-      set: { status: 'in_review', checksum, justification: justification || null, submittedAt: new Date() },
+      set: { status: 'in_review', checksum, pulseCount, justification: justification || null, submittedAt: new Date() },
     });
     if (!row) throw conflict(CONFLICT_MESSAGE);
     await touchProtocol(tx, { labId: v.labId, protocolId: v.protocolId });
@@ -292,6 +292,7 @@ export async function decideVersion(member: Member, input: DecisionInput, ctx: R
   const v = await loadVersion(member, input.versionId, input.revision);
   const to = await authorize(member, v, input.decision);
   let checksum: string | null = null;
+  let pulseCount: number | null = null;
   if (input.decision === 'approve') {
     // What is approved must be what was submitted and what the rig will get: the schedule
     // is regenerated and its checksum compared, and the rig's clock checked again.
@@ -299,7 +300,7 @@ export async function decideVersion(member: Member, input: DecisionInput, ctx: R
     if (v.rigClockHz !== spec.clockHz) {
       throw conflict(`${v.rigName ?? 'The rig'} now runs at ${v.rigClockHz} Hz, not the ${spec.clockHz} Hz this version was made for. Return it so that it is made again for the rig.`);
     }
-    checksum = scanSchedule(spec).checksum;
+    ({ checksum, pulseCount } = scanSchedule(spec));
     if (checksum !== v.checksum) {
       throw conflict('The engine now generates a different schedule for this spec than the one submitted. Return the version so that it is submitted again.');
     }
@@ -311,7 +312,7 @@ export async function decideVersion(member: Member, input: DecisionInput, ctx: R
       versionId: v.id,
       revision: input.revision,
       from: 'in_review',
-      set: { status: to, decidedBy: member.user.id, decidedAt: now, ...(checksum ? { approvedChecksum: checksum } : {}) },
+      set: { status: to, decidedBy: member.user.id, decidedAt: now, ...(checksum ? { approvedChecksum: checksum, pulseCount } : {}) },
     });
     if (!row) throw conflict(CONFLICT_MESSAGE);
     await insertComment(tx, { labId: v.labId, versionId: v.id, authorId: member.user.id, decision: input.decision, body: input.comment });

@@ -198,7 +198,10 @@ describe('submission', () => {
     const res = await submitVersion(t.as.author, { versionId, revision: (await versionRow(versionId)).revision, justification: '' }, CTX);
     const row = await versionRow(versionId);
     expect(row.status).toBe('in_review');
-    expect(row.checksum).toBe(scanSchedule({ ...CLEAN_SPEC, clockHz: t.rig.clockHz }).checksum);
+    const scan = scanSchedule({ ...CLEAN_SPEC, clockHz: t.rig.clockHz });
+    expect(row.checksum).toBe(scan.checksum);
+    expect(row.pulseCount).toBe(scan.pulseCount);
+    expect(row.pulseCount).toBeGreaterThan(0);
     expect(row.checksum).toMatch(/^sha256:[0-9a-f]{64}$/);
     expect(res.checksum).toBe(row.checksum);
     const audit = (await auditFor(versionId)).find((a) => a.action === 'version.submitted')!;
@@ -245,7 +248,7 @@ describe('approval', () => {
     const t0 = Date.now();
     await decideVersion(t.as.officer, { versionId, revision: submitted.revision, decision: 'approve', comment: 'fine' }, CTX);
     const row = await versionRow(versionId);
-    expect(row).toMatchObject({ status: 'approved', decidedBy: t.as.officer.user.id, approvedChecksum: submitted.checksum });
+    expect(row).toMatchObject({ status: 'approved', decidedBy: t.as.officer.user.id, approvedChecksum: submitted.checksum, pulseCount: submitted.pulseCount });
     expect(row.decidedAt!.getTime()).toBeGreaterThanOrEqual(t0 - 1000);
     const comments = await db.select().from(reviewComments).where(eq(reviewComments.versionId, versionId));
     expect(comments).toMatchObject([{ decision: 'approve', body: 'fine', authorId: t.as.officer.user.id }]);
@@ -281,6 +284,8 @@ describe('the database guards approved versions', () => {
       sql`update protocol_versions set status = 'draft' where id = ${versionId}`,
       sql`update protocol_versions set justification = 'edited later' where id = ${versionId}`,
       sql`update protocol_versions set approved_checksum = 'sha256:00' where id = ${versionId}`,
+      sql`update protocol_versions set pulse_count = pulse_count + 1 where id = ${versionId}`,
+      sql`update protocol_versions set status = 'withdrawn', pulse_count = 1 where id = ${versionId}`,
       sql`delete from protocol_versions where id = ${versionId}`,
     ];
     for (const q of attempts) {

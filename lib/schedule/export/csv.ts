@@ -22,8 +22,11 @@
  * JSON strings.
  *
  * Streaming: one pass computes the checksum (it heads the file), a second writes rows;
- * at most one 60 s block of pulses (and its text) is held at a time.
+ * at most one 60 s block of pulses (and its text) is held at a time. When the checksum
+ * and pulse count are known (options.known), a single pass writes the rows and checks
+ * them against those values; the last chunk is held back until the check passes.
  */
+import { ChecksumWriter } from '../checksum';
 import { compileSpec } from '../compile';
 import { ENGINE_ID } from '../engine';
 import { buildManifest, scanSchedule } from '../manifest';
@@ -31,7 +34,16 @@ import type { Spec } from '../spec';
 import { trialBlocks } from '../stream';
 import { assertValid } from '../validate';
 import { ByteWriter, ascii, decimalPlan, writeRows } from './ascii';
-import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type MetaValue, type ScheduleMeta } from './meta';
+import {
+  PREVIEW_NOTICE,
+  SCHEDULE_FORMAT,
+  ScheduleMismatchError,
+  metaEntries,
+  type ExportOptions,
+  type KnownSchedule,
+  type MetaValue,
+  type ScheduleMeta,
+} from './meta';
 
 export const CSV_COLUMNS = [
   'trial',
@@ -80,10 +92,10 @@ export function rowSuffix(spec: Spec, channel: string | undefined): string {
  * The CSV as byte chunks (UTF-8): the header block, then one chunk per 60 s block of a
  * trial. Prefer this for HTTP bodies and files; csvLines gives the same text as strings.
  */
-export function* csvBytes(spec: Spec, meta?: ScheduleMeta): Generator<Uint8Array, void, undefined> {
+export function* csvBytes(spec: Spec, meta?: ScheduleMeta, options: ExportOptions = {}): Generator<Uint8Array, void, undefined> {
   assertValid(spec);
   const entries = metaEntries(meta);
-  const scan = scanSchedule(spec);
+  const scan = options.known ?? scanSchedule(spec);
   const manifest = buildManifest(spec, scan);
   const head: string[] = [];
   if (meta?.preview) head.push(`# ${PREVIEW_NOTICE}`);
@@ -100,7 +112,26 @@ export function* csvBytes(spec: Spec, meta?: ScheduleMeta): Generator<Uint8Array
   head.push(`# manifest: ${JSON.stringify(manifest)}`, CSV_HEADER);
   yield ascii(head.join('\n') + '\n');
 
-  yield* csvRowBytes(spec, range(spec.trials), meta?.channel === undefined ? undefined : String(meta.channel));
+  const channel = meta?.channel === undefined ? undefined : String(meta.channel);
+  if (options.known) yield* checkedRows(spec, channel, options.known);
+  else yield* csvRowBytes(spec, range(spec.trials), channel);
+}
+
+/** All rows in one pass, checked against the known checksum and count; the last chunk waits for the check. */
+function* checkedRows(spec: Spec, channel: string | undefined, known: KnownSchedule): Generator<Uint8Array, void, undefined> {
+  const sum = new ChecksumWriter();
+  let pulseCount = 0;
+  let held: Uint8Array | null = null;
+  for (const chunk of csvRowBytes(spec, range(spec.trials), channel, (trial, samples, length) => {
+    sum.add(trial, samples, length);
+    pulseCount += length;
+  })) {
+    if (held) yield held;
+    held = chunk;
+  }
+  const actual = { checksum: sum.digest(), pulseCount };
+  if (actual.checksum !== known.checksum || actual.pulseCount !== known.pulseCount) throw new ScheduleMismatchError(known, actual);
+  if (held) yield held;
 }
 
 const range = (n: number) => Array.from({ length: n }, (_, i) => i);
@@ -109,7 +140,12 @@ const range = (n: number) => Array.from({ length: n }, (_, i) => i);
  * Just the rows, for the given trials in the given order, one chunk per 60 s block.
  * Workers can each write a share of the trials; the header needs the whole checksum.
  */
-export function* csvRowBytes(spec: Spec, trials: readonly number[], channel?: string): Generator<Uint8Array, void, undefined> {
+export function* csvRowBytes(
+  spec: Spec,
+  trials: readonly number[],
+  channel?: string,
+  onBlock?: (trial: number, samples: Float64Array, length: number) => void,
+): Generator<Uint8Array, void, undefined> {
   const c = compileSpec(spec);
   const clk = c.clockHz;
   const plan = decimalPlan(clk);
@@ -118,6 +154,7 @@ export function* csvRowBytes(spec: Spec, trials: readonly number[], channel?: st
   for (const trial of trials) {
     const prefix = ascii(`${trial},`);
     for (const { samples, length, firstIndex } of trialBlocks(c, trial)) {
+      onBlock?.(trial, samples, length);
       writeRows(w, prefix, suffix, samples, length, firstIndex, clk, plan);
       yield w.take();
     }
@@ -125,7 +162,7 @@ export function* csvRowBytes(spec: Spec, trials: readonly number[], channel?: st
 }
 
 /** The CSV as string chunks (same bytes as csvBytes, decoded). */
-export function* csvLines(spec: Spec, meta?: ScheduleMeta): Generator<string, void, undefined> {
+export function* csvLines(spec: Spec, meta?: ScheduleMeta, options: ExportOptions = {}): Generator<string, void, undefined> {
   const decoder = new TextDecoder();
-  for (const chunk of csvBytes(spec, meta)) yield decoder.decode(chunk);
+  for (const chunk of csvBytes(spec, meta, options)) yield decoder.decode(chunk);
 }

@@ -11,22 +11,38 @@
  * onsetSamples are the canonical integers; onsetsS[i] = onsetSamples[i] / clockHz.
  * Streaming: the checksum and statistics come from a first pass; each trial is then
  * generated twice (once for onsetsS, once for onsetSamples) so that no trial is ever
- * held whole — regenerating is cheaper than holding hours of pulses.
+ * held whole — regenerating is cheaper than holding hours of pulses. With a known
+ * checksum and count (options.known) there is no first pass: statistics are gathered
+ * on the way and the pulses checked before the closing chunk (see KnownSchedule).
  * `pulseloom generate` prints exactly this.
  */
+import { ChecksumWriter } from '../checksum';
 import { compileSpec, type Compiled } from '../compile';
 import { buildManifest, scanSchedule } from '../manifest';
+import { summarize, trialStats, type TrialStats } from '../stats';
+import type { SweepCounts } from '../sweep-state';
 import type { Spec } from '../spec';
 import { trialBlocks } from '../stream';
 import { assertValid } from '../validate';
 import { ByteWriter, ascii, decimalPlan, writeSeconds } from './ascii';
-import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type ScheduleMeta } from './meta';
+import { PREVIEW_NOTICE, SCHEDULE_FORMAT, ScheduleMismatchError, metaEntries, type ExportOptions, type ScheduleMeta } from './meta';
 
-/** One trial's onsets as a comma-separated run of JSON numbers, block by block. */
-function* numberRun(c: Compiled, trial: number, w: ByteWriter, asSeconds: boolean): Generator<Uint8Array> {
+/** One trial's onsets as a comma-separated run of JSON numbers, block by block; returns the trial's counters. */
+function* numberRun(
+  c: Compiled,
+  trial: number,
+  w: ByteWriter,
+  asSeconds: boolean,
+  onBlock?: (samples: Float64Array, length: number) => void,
+): Generator<Uint8Array, SweepCounts, undefined> {
   const plan = decimalPlan(c.clockHz);
   let first = true;
-  for (const { samples, length } of trialBlocks(c, trial)) {
+  const blocks = trialBlocks(c, trial);
+  for (;;) {
+    const r = blocks.next();
+    if (r.done) return r.value;
+    const { samples, length } = r.value;
+    onBlock?.(samples, length);
     w.ensure(length * 50);
     for (let i = 0; i < length; i++) {
       if (!first) w.buf[w.pos++] = 44;
@@ -39,11 +55,12 @@ function* numberRun(c: Compiled, trial: number, w: ByteWriter, asSeconds: boolea
 }
 
 /** The JSON export as UTF-8 byte chunks; jsonChunks gives the same text as strings. */
-export function* jsonBytes(spec: Spec, meta?: ScheduleMeta): Generator<Uint8Array, void, undefined> {
+export function* jsonBytes(spec: Spec, meta?: ScheduleMeta, options: ExportOptions = {}): Generator<Uint8Array, void, undefined> {
   assertValid(spec);
   const entries = metaEntries(meta);
-  const scan = scanSchedule(spec);
-  const manifest = buildManifest(spec, scan);
+  const known = options.known;
+  const scan = known ? null : scanSchedule(spec);
+  const manifest = buildManifest(spec, known ?? scan!);
   const c = compileSpec(spec);
   const w = new ByteWriter();
 
@@ -52,17 +69,27 @@ export function* jsonBytes(spec: Spec, meta?: ScheduleMeta): Generator<Uint8Arra
   head += `"meta":${JSON.stringify(Object.fromEntries(entries))},`;
   head += `"manifest":${JSON.stringify(manifest)},"trials":[`;
   yield ascii(head);
+  const sum = known ? new ChecksumWriter() : null;
+  const perTrial: TrialStats[] = [];
+  let pulseCount = 0;
   for (let trial = 0; trial < spec.trials; trial++) {
     yield ascii(`${trial ? ',' : ''}\n{"trial":${trial},"onsetsS":[`);
     yield* numberRun(c, trial, w, true);
     yield ascii('],"onsetSamples":[');
-    yield* numberRun(c, trial, w, false);
+    const counts = yield* numberRun(c, trial, w, false, sum ? (samples, n) => sum.add(trial, samples, n) : undefined);
     yield ascii(']}');
+    pulseCount += counts.kept;
+    if (!scan) perTrial.push(trialStats(c, trial, counts));
   }
-  yield ascii(`\n],"stats":${JSON.stringify(scan.stats)}}\n`);
+  if (known) {
+    const actual = { checksum: sum!.digest(), pulseCount };
+    if (actual.checksum !== known.checksum || actual.pulseCount !== known.pulseCount) throw new ScheduleMismatchError(known, actual);
+  }
+  const stats = scan ? scan.stats : summarize(c, perTrial);
+  yield ascii(`\n],"stats":${JSON.stringify(stats)}}\n`);
 }
 
-export function* jsonChunks(spec: Spec, meta?: ScheduleMeta): Generator<string, void, undefined> {
+export function* jsonChunks(spec: Spec, meta?: ScheduleMeta, options: ExportOptions = {}): Generator<string, void, undefined> {
   const decoder = new TextDecoder();
-  for (const chunk of jsonBytes(spec, meta)) yield decoder.decode(chunk);
+  for (const chunk of jsonBytes(spec, meta, options)) yield decoder.decode(chunk);
 }

@@ -54,10 +54,11 @@ export async function makeVersion(a: {
     .returning();
   let checksum: string | null = null;
   if (a.status !== 'draft') {
-    checksum = scanSchedule(a.spec).checksum;
+    const scan = scanSchedule(a.spec);
+    checksum = scan.checksum;
     await db
       .update(protocolVersions)
-      .set({ status: 'in_review', checksum, submittedAt: new Date() })
+      .set({ status: 'in_review', checksum, pulseCount: scan.pulseCount, submittedAt: new Date() })
       .where(eq(protocolVersions.id, v!.id));
   }
   if (a.status === 'approved' || a.status === 'withdrawn') {

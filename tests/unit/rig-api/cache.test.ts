@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { ByteLru } from '@/lib/rig-api/cache';
 import { byteStream, cachedScheduleBody, scheduleChunks } from '@/lib/rig-api/render';
-import { csvLines, type Spec } from '@/lib/schedule';
+import { csvLines, scanSchedule, type Spec } from '@/lib/schedule';
+import { vi } from 'vitest';
 
 const bytes = (n: number) => new Uint8Array(n);
 
@@ -70,5 +71,27 @@ describe('schedule byte stream', () => {
     await reader.read();
     await reader.cancel();
     expect(c.size).toBe(0);
+  });
+
+  it('with the stored checksum and count: the same bytes in one pass, cached', async () => {
+    const c = new ByteLru(10_000_000, 10_000_000);
+    const known = scanSchedule(spec);
+    for (const format of ['csv', 'json'] as const) {
+      const want = await readAll(byteStream(scheduleChunks(spec, { protocol: 'p' }, format)));
+      const body = cachedScheduleBody(format, () => scheduleChunks(spec, { protocol: 'p' }, format, known), c).body;
+      expect(await readAll(body as ReadableStream<Uint8Array>)).toBe(want);
+    }
+    expect(c.size).toBe(2);
+  });
+
+  it('errors, unfinished and uncached, when the pulses differ from the stored checksum', async () => {
+    const c = new ByteLru(10_000_000, 10_000_000);
+    const wrong = { checksum: `sha256:${'f'.repeat(64)}`, pulseCount: scanSchedule(spec).pulseCount };
+    const logged = vi.spyOn(console, 'error').mockImplementation(() => {});
+    const body = cachedScheduleBody('k', () => scheduleChunks(spec, {}, 'csv', wrong), c).body as ReadableStream<Uint8Array>;
+    await expect(readAll(body)).rejects.toThrow(/differs from the stored one/);
+    expect(c.size).toBe(0);
+    expect(logged).toHaveBeenCalled();
+    logged.mockRestore();
   });
 });

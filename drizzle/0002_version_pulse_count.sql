@@ -1,0 +1,1 @@
+ALTER TABLE "protocol_versions" ADD COLUMN "pulse_count" bigint;
