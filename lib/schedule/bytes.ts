@@ -77,7 +77,7 @@ export class ByteWriter {
 }
 
 /** "00".."99" as ASCII pairs: two digits per division. */
-export const PAIRS = (() => {
+const PAIRS = (() => {
   const t = new Uint8Array(200);
   for (let i = 0; i < 100; i++) {
     t[2 * i] = 48 + ((i / 10) | 0);
@@ -86,18 +86,17 @@ export const PAIRS = (() => {
   return t;
 })();
 
+/** Largest value putInt31 takes. */
+export const INT31_MAX = 2147483647;
+
 /**
- * Non-negative safe integer in decimal at buf[pos…] (caller ensures ≤ 16 bytes of room);
- * returns the position after it. A free function on locals, for the hot loops.
+ * 0 ≤ x ≤ INT31_MAX in decimal at buf[pos…]; returns the position after it. Small and
+ * not recursive, so V8 inlines it into the hot loops: digits counted first, then written
+ * right to left two per division.
  */
-export function putUint(buf: Uint8Array, pos: number, x: number): number {
-  if (x >= 1e9) {
-    const hi = Math.floor(x / 1e9);
-    pos = putUint(buf, pos, hi);
-    return putPadded9(buf, pos, (x - hi * 1e9) | 0);
-  }
+export function putInt31(buf: Uint8Array, pos: number, x: number): number {
   let v = x | 0;
-  const len = v < 10 ? 1 : v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : 9;
+  const len = v < 10 ? 1 : v < 100 ? 2 : v < 1e3 ? 3 : v < 1e4 ? 4 : v < 1e5 ? 5 : v < 1e6 ? 6 : v < 1e7 ? 7 : v < 1e8 ? 8 : v < 1e9 ? 9 : 10;
   let q = pos + len;
   while (v >= 100) {
     const y = (v / 100) | 0;
@@ -111,6 +110,17 @@ export function putUint(buf: Uint8Array, pos: number, x: number): number {
     buf[--q] = PAIRS[v << 1];
   } else buf[--q] = 48 + v;
   return pos + len;
+}
+
+/**
+ * Non-negative safe integer in decimal at buf[pos…] (caller ensures ≤ 16 bytes of room);
+ * returns the position after it.
+ */
+export function putUint(buf: Uint8Array, pos: number, x: number): number {
+  if (x <= INT31_MAX) return putInt31(buf, pos, x);
+  const hi = Math.floor(x / 1e9);
+  pos = putUint(buf, pos, hi);
+  return putPadded9(buf, pos, (x - hi * 1e9) | 0);
 }
 
 function putPadded9(buf: Uint8Array, pos: number, v: number): number {

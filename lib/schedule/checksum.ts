@@ -11,7 +11,7 @@
  * Server-side (node:crypto): the engine's seed hashing stays pure for the browser.
  */
 import { createHash, type Hash } from 'node:crypto';
-import { ByteWriter, PAIRS, putUint, wordsOf } from './bytes';
+import { ByteWriter, INT31_MAX, putInt31, putUint, wordsOf } from './bytes';
 
 export const CHECKSUM_OF =
   "sha256 over UTF-8 lines '<trial>,<onsetSample>\\n' (decimal integers), trials ascending, onsets ascending within a trial, no header";
@@ -43,24 +43,7 @@ export class ChecksumWriter {
       for (let k = 0; k < h32.length; k++) view.setUint32(p + 4 * k, h32[k], true);
       p += hn;
       const s = samples[i];
-      if (s <= 2147483647) {
-        // Digits inline, right to left, two per division (putUint is not inlined: it recurses).
-        let x = s | 0;
-        const len = x < 10 ? 1 : x < 100 ? 2 : x < 1e3 ? 3 : x < 1e4 ? 4 : x < 1e5 ? 5 : x < 1e6 ? 6 : x < 1e7 ? 7 : x < 1e8 ? 8 : x < 1e9 ? 9 : 10;
-        let q = p + len;
-        p = q;
-        while (x >= 100) {
-          const y = (x / 100) | 0;
-          const r = (x - y * 100) << 1;
-          buf[--q] = PAIRS[r + 1];
-          buf[--q] = PAIRS[r];
-          x = y;
-        }
-        if (x >= 10) {
-          buf[--q] = PAIRS[(x << 1) + 1];
-          buf[--q] = PAIRS[x << 1];
-        } else buf[--q] = 48 + x;
-      } else p = putUint(buf, p, s);
+      p = s <= INT31_MAX ? putInt31(buf, p, s) : putUint(buf, p, s);
       buf[p++] = 10; // '\n'
     }
     w.pos = p;

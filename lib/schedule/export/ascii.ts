@@ -1,5 +1,5 @@
 /** Text helpers for the exporters: bytes of fixed strings, and onset seconds written without String(). */
-import { ByteWriter, PAIRS, putUint, wordsOf } from '../bytes';
+import { ByteWriter, INT31_MAX, putInt31, putUint, wordsOf } from '../bytes';
 
 export { ByteWriter };
 
@@ -68,13 +68,6 @@ const IB = 0; // pulse_index digits then ',', left-aligned
 const SB = 32; // sample digits, left-aligned
 const VB = 64; // sample·scale digits, left-aligned
 const ZEROS = 0x30303030; // "0000"
-/** Largest value the int32 digit loop takes. */
-const INT_DIGITS = 2147483647;
-
-/** Decimal digits of 0 ≤ x ≤ 2^31 − 1. */
-function digitCount(x: number): number {
-  return x < 10 ? 1 : x < 100 ? 2 : x < 1e3 ? 3 : x < 1e4 ? 4 : x < 1e5 ? 5 : x < 1e6 ? 6 : x < 1e7 ? 7 : x < 1e8 ? 8 : x < 1e9 ? 9 : 10;
-}
 
 /**
  * CSV rows `<trial>,<index>,<onset_s>,<onset_sample><suffix>` straight into bytes.
@@ -136,62 +129,37 @@ export function writeRows(
     }
 
     const v = s * scale;
-    if (plan !== null && v <= INT_DIGITS && (v >= minV || v === 0)) {
-      // The sample's digits at sc[SB, SB + sl).
-      let x = s | 0;
-      const sl = digitCount(x);
-      let e = SB + sl;
-      while (x >= 100) {
-        const y = (x / 100) | 0;
-        const r = (x - y * 100) << 1;
-        sc[--e] = PAIRS[r + 1];
-        sc[--e] = PAIRS[r];
-        x = y;
-      }
-      if (x >= 10) {
-        sc[--e] = PAIRS[(x << 1) + 1];
-        sc[--e] = PAIRS[x << 1];
-      } else sc[--e] = 48 + x;
-      // The scaled onset's digits at sc[ob, ob + ol): the same ones when scale is 1.
+    // scale ≥ 1 (10^places / clockHz with clockHz = 2^a·5^b, places = max(a, b)), so s ≤ v.
+    if (plan !== null && v <= INT31_MAX && (v >= minV || v === 0)) {
+      // The sample's digits at sc[SB, SB + sl); the scaled onset's at sc[ob, ob + ol),
+      // the same ones when scale is 1.
+      const sl = putInt31(sc, SB, s) - SB;
       let ob = SB;
       let ol = sl;
       if (!same) {
-        x = v | 0;
         ob = VB;
-        ol = digitCount(x);
-        e = VB + ol;
-        while (x >= 100) {
-          const y = (x / 100) | 0;
-          const r = (x - y * 100) << 1;
-          sc[--e] = PAIRS[r + 1];
-          sc[--e] = PAIRS[r];
-          x = y;
-        }
-        if (x >= 10) {
-          sc[--e] = PAIRS[(x << 1) + 1];
-          sc[--e] = PAIRS[x << 1];
-        } else sc[--e] = 48 + x;
+        ol = putInt31(sc, VB, v) - VB;
       }
       // Integer part: the digits before the last `places`, or "0".
-      const il2 = ol - places;
+      const intLen = ol - places;
       let fs = ob;
-      if (il2 > 0) {
+      if (intLen > 0) {
         view.setUint32(p, sv.getUint32(ob, true), true);
         view.setUint32(p + 4, sv.getUint32(ob + 4, true), true);
-        if (il2 > 8) view.setUint32(p + 8, sv.getUint32(ob + 8, true), true);
-        p += il2;
-        fs = ob + il2;
+        if (intLen > 8) view.setUint32(p + 8, sv.getUint32(ob + 8, true), true);
+        p += intLen;
+        fs = ob + intLen;
       } else b[p++] = 48;
       // Fraction: drop trailing zeros; "0" alone when nothing is left.
       let fe = ob + ol;
       while (fe > fs && sc[fe - 1] === 48) fe--;
       if (fe > fs) {
         b[p++] = 46; // '.'
-        if (il2 < 0) {
+        if (intLen < 0) {
           view.setUint32(p, ZEROS, true);
           view.setUint32(p + 4, ZEROS, true);
           view.setUint32(p + 8, ZEROS, true);
-          p -= il2;
+          p -= intLen;
         }
         view.setUint32(p, sv.getUint32(fs, true), true);
         view.setUint32(p + 4, sv.getUint32(fs + 4, true), true);
