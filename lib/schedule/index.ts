@@ -26,12 +26,5 @@ export { RNG_ALGORITHM, SEED_DERIVATION, BLOCK_SECONDS, blockSeed } from './seed
 export { SpecInvalidError, assertValid } from './validate';
 export { csvBytes, csvLines, csvRowBytes, CSV_COLUMNS, CSV_HEADER } from './export/csv';
 export { jsonBytes, jsonChunks } from './export/json';
-export {
-  SCHEDULE_FORMAT,
-  PREVIEW_NOTICE,
-  ScheduleMismatchError,
-  type ScheduleMeta,
-  type MetaValue,
-  type KnownSchedule,
-  type ExportOptions,
-} from './export/meta';
+export { SCHEDULE_FORMAT, PREVIEW_NOTICE, type ScheduleMeta, type MetaValue } from './export/meta';
+export { ScheduleMismatchError, type KnownSchedule, type ExportOptions } from './export/known';

@@ -26,7 +26,6 @@
  * and pulse count are known (options.known), a single pass writes the rows and checks
  * them against those values; the last chunk is held back until the check passes.
  */
-import { ChecksumWriter } from '../checksum';
 import { compileSpec } from '../compile';
 import { ENGINE_ID } from '../engine';
 import { buildManifest, scanSchedule } from '../manifest';
@@ -34,16 +33,8 @@ import type { Spec } from '../spec';
 import { trialBlocks } from '../stream';
 import { assertValid } from '../validate';
 import { ByteWriter, ascii, decimalPlan, writeRows } from './ascii';
-import {
-  PREVIEW_NOTICE,
-  SCHEDULE_FORMAT,
-  ScheduleMismatchError,
-  metaEntries,
-  type ExportOptions,
-  type KnownSchedule,
-  type MetaValue,
-  type ScheduleMeta,
-} from './meta';
+import { KnownScheduleCheck, type ExportOptions, type KnownSchedule } from './known';
+import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type MetaValue, type ScheduleMeta } from './meta';
 
 export const CSV_COLUMNS = [
   'trial',
@@ -119,18 +110,13 @@ export function* csvBytes(spec: Spec, meta?: ScheduleMeta, options: ExportOption
 
 /** All rows in one pass, checked against the known checksum and count; the last chunk waits for the check. */
 function* checkedRows(spec: Spec, channel: string | undefined, known: KnownSchedule): Generator<Uint8Array, void, undefined> {
-  const sum = new ChecksumWriter();
-  let pulseCount = 0;
+  const check = new KnownScheduleCheck(known);
   let held: Uint8Array | null = null;
-  for (const chunk of csvRowBytes(spec, range(spec.trials), channel, (trial, samples, length) => {
-    sum.add(trial, samples, length);
-    pulseCount += length;
-  })) {
+  for (const chunk of csvRowBytes(spec, range(spec.trials), channel, (trial, samples, length) => check.add(trial, samples, length))) {
     if (held) yield held;
     held = chunk;
   }
-  const actual = { checksum: sum.digest(), pulseCount };
-  if (actual.checksum !== known.checksum || actual.pulseCount !== known.pulseCount) throw new ScheduleMismatchError(known, actual);
+  check.verify();
   if (held) yield held;
 }
 

@@ -16,7 +16,6 @@
  * on the way and the pulses checked before the closing chunk (see KnownSchedule).
  * `pulseloom generate` prints exactly this.
  */
-import { ChecksumWriter } from '../checksum';
 import { compileSpec, type Compiled } from '../compile';
 import { buildManifest, scanSchedule } from '../manifest';
 import { summarize, trialStats, type TrialStats } from '../stats';
@@ -25,7 +24,8 @@ import type { Spec } from '../spec';
 import { trialBlocks } from '../stream';
 import { assertValid } from '../validate';
 import { ByteWriter, ascii, decimalPlan, writeSeconds } from './ascii';
-import { PREVIEW_NOTICE, SCHEDULE_FORMAT, ScheduleMismatchError, metaEntries, type ExportOptions, type ScheduleMeta } from './meta';
+import { KnownScheduleCheck, type ExportOptions } from './known';
+import { PREVIEW_NOTICE, SCHEDULE_FORMAT, metaEntries, type ScheduleMeta } from './meta';
 
 /** One trial's onsets as a comma-separated run of JSON numbers, block by block; returns the trial's counters. */
 function* numberRun(
@@ -69,22 +69,17 @@ export function* jsonBytes(spec: Spec, meta?: ScheduleMeta, options: ExportOptio
   head += `"meta":${JSON.stringify(Object.fromEntries(entries))},`;
   head += `"manifest":${JSON.stringify(manifest)},"trials":[`;
   yield ascii(head);
-  const sum = known ? new ChecksumWriter() : null;
+  const check = known ? new KnownScheduleCheck(known) : null;
   const perTrial: TrialStats[] = [];
-  let pulseCount = 0;
   for (let trial = 0; trial < spec.trials; trial++) {
     yield ascii(`${trial ? ',' : ''}\n{"trial":${trial},"onsetsS":[`);
     yield* numberRun(c, trial, w, true);
     yield ascii('],"onsetSamples":[');
-    const counts = yield* numberRun(c, trial, w, false, sum ? (samples, n) => sum.add(trial, samples, n) : undefined);
+    const counts = yield* numberRun(c, trial, w, false, check ? (samples, n) => check.add(trial, samples, n) : undefined);
     yield ascii(']}');
-    pulseCount += counts.kept;
     if (!scan) perTrial.push(trialStats(c, trial, counts));
   }
-  if (known) {
-    const actual = { checksum: sum!.digest(), pulseCount };
-    if (actual.checksum !== known.checksum || actual.pulseCount !== known.pulseCount) throw new ScheduleMismatchError(known, actual);
-  }
+  check?.verify();
   const stats = scan ? scan.stats : summarize(c, perTrial);
   yield ascii(`\n],"stats":${JSON.stringify(stats)}}\n`);
 }

@@ -52,29 +52,3 @@ export function metaEntries(meta: ScheduleMeta | undefined): [string, MetaValue]
   return out;
 }
 
-/**
- * What the caller already knows about the schedule, e.g. stored when the version was
- * submitted. With it the writers need no counting pass: they write the header from these
- * values, check every pulse against them as they go, and throw ScheduleMismatchError
- * before the last chunk if the pulses differ, so a stream that disagrees never completes.
- */
-export interface KnownSchedule {
-  checksum: string;
-  pulseCount: number;
-}
-
-export interface ExportOptions {
-  known?: KnownSchedule;
-}
-
-export class ScheduleMismatchError extends Error {
-  constructor(
-    readonly expected: KnownSchedule,
-    readonly actual: KnownSchedule,
-  ) {
-    super(
-      `the regenerated schedule differs from the stored one: ${actual.pulseCount} pulses, ${actual.checksum}; expected ${expected.pulseCount} pulses, ${expected.checksum}`,
-    );
-    this.name = 'ScheduleMismatchError';
-  }
-}
