@@ -34,7 +34,15 @@ export * from './sweep-state';
 
 /**
  * Sweep one block: appends kept samples to `out`, updates `state` and `counts`.
- * Hot loop: no allocation, Alea stepped on locals, the segment index only moves forward,
+ * Alea is stepped on locals, in a form that gives exactly seedrandom's numbers but keeps
+ * the carry off the critical path. seedrandom computes t = 2091639·s0 + c·2^-32,
+ * c' = ⌊t⌋, s2' = t − c'. Here p = 2091639·s0 is split into ⌊p⌋ and its fraction first
+ * (all exact: every value is a multiple of 2^-32 below 2^21), then the carry cc = c·2^-32
+ * is added to the fraction; it pushes it over 1 only about once in 4000 steps (a branch
+ * that is almost never taken). So each step waits on s0, drawn three steps earlier,
+ * instead of on the previous step's carry.
+ *
+ * Hot loop: no allocation, the segment index only moves forward,
  * and per cell a [lo, hi] bound of ρ (padded for rounding) settles most candidates
  * without evaluating ρ — the decision is still exactly "y < ρ(t)" as computed below.
  * Two phases: thinning fills one array with every cell's survivors (each cell sorted,
@@ -68,7 +76,10 @@ export function sweepBlock(
   let a0 = rng.s0;
   let a1 = rng.s1;
   let a2 = rng.s2;
-  let ac = rng.c;
+  let cc = rng.c * 2.3283064365386963e-10;
+  let p = 0;
+  let pi = 0;
+  let f = 0;
 
   let seg = segmentAt(starts, c.nSegments, t0);
   let segStart = starts[seg];
@@ -97,11 +108,17 @@ export function sweepBlock(
     const ce = t0 + (j + 1) * cellS;
 
     // Count: Poisson inversion with the first uniform of the cell.
-    let x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+    p = 2091639 * a0;
+    pi = Math.trunc(p);
+    f = p - pi + cc;
+    if (f >= 1) {
+      f -= 1;
+      pi += 1;
+    }
     a0 = a1;
     a1 = a2;
-    ac = Math.trunc(x);
-    a2 = x - ac;
+    a2 = f;
+    cc = pi * 2.3283064365386963e-10;
     let n = cellGuide[(a2 * GUIDE_SIZE) | 0];
     while (a2 >= cellCdf[n]) n++;
     if (n === 0) continue;
@@ -172,17 +189,29 @@ export function sweepBlock(
     const m0 = m;
     if (recoveryS > 0) {
       for (let i = 0; i < n; i++) {
-        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+        p = 2091639 * a0;
+        pi = Math.trunc(p);
+        f = p - pi + cc;
+        if (f >= 1) {
+          f -= 1;
+          pi += 1;
+        }
         a0 = a1;
         a1 = a2;
-        ac = Math.trunc(x);
-        a2 = x - ac;
+        a2 = f;
+        cc = pi * 2.3283064365386963e-10;
         const t = cs + a2 * cellS;
-        x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+        p = 2091639 * a0;
+        pi = Math.trunc(p);
+        f = p - pi + cc;
+        if (f >= 1) {
+          f -= 1;
+          pi += 1;
+        }
         a0 = a1;
         a1 = a2;
-        ac = Math.trunc(x);
-        a2 = x - ac;
+        a2 = f;
+        cc = pi * 2.3283064365386963e-10;
         if (t >= t1) continue;
         const y = a2 * ceilingHz;
         candidates++;
@@ -215,17 +244,29 @@ export function sweepBlock(
         // a height is computed only inside it; outside, "u < midU" is the decision, as a
         // flag, not a branch: it is a coin flip a branch would mispredict.
         for (let i = 0; i < n; i++) {
-          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          p = 2091639 * a0;
+          pi = Math.trunc(p);
+          f = p - pi + cc;
+          if (f >= 1) {
+            f -= 1;
+            pi += 1;
+          }
           a0 = a1;
           a1 = a2;
-          ac = Math.trunc(x);
-          a2 = x - ac;
+          a2 = f;
+          cc = pi * 2.3283064365386963e-10;
           pos[m] = cs + a2 * cellS;
-          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          p = 2091639 * a0;
+          pi = Math.trunc(p);
+          f = p - pi + cc;
+          if (f >= 1) {
+            f -= 1;
+            pi += 1;
+          }
           a0 = a1;
           a1 = a2;
-          ac = Math.trunc(x);
-          a2 = x - ac;
+          a2 = f;
+          cc = pi * 2.3283064365386963e-10;
           if (Math.abs(a2 - midU) <= halfU) {
             const t = pos[m];
             const y = a2 * ceilingHz;
@@ -242,17 +283,29 @@ export function sweepBlock(
         // The cell reaching t1 (the end of a short last block): exact test for every candidate.
         cellCandidates = 0;
         for (let i = 0; i < n; i++) {
-          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          p = 2091639 * a0;
+          pi = Math.trunc(p);
+          f = p - pi + cc;
+          if (f >= 1) {
+            f -= 1;
+            pi += 1;
+          }
           a0 = a1;
           a1 = a2;
-          ac = Math.trunc(x);
-          a2 = x - ac;
+          a2 = f;
+          cc = pi * 2.3283064365386963e-10;
           const t = cs + a2 * cellS;
-          x = 2091639 * a0 + ac * 2.3283064365386963e-10;
+          p = 2091639 * a0;
+          pi = Math.trunc(p);
+          f = p - pi + cc;
+          if (f >= 1) {
+            f -= 1;
+            pi += 1;
+          }
           a0 = a1;
           a1 = a2;
-          ac = Math.trunc(x);
-          a2 = x - ac;
+          a2 = f;
+          cc = pi * 2.3283064365386963e-10;
           if (t >= t1) continue;
           const y = a2 * ceilingHz;
           cellCandidates++;
@@ -317,7 +370,7 @@ export function sweepBlock(
   rng.s0 = a0;
   rng.s1 = a1;
   rng.s2 = a2;
-  rng.c = ac;
+  rng.c = cc * 4294967296;
   state.lastSample = lastSample;
   state.ringCount = ringCount;
   state.ringHead = ringHead;
