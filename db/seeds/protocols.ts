@@ -44,25 +44,34 @@ async function audit(ctx: SeedContext, labId: string, who: string, action: strin
   });
 }
 
+/** A protocol of the lab on one rig; returns its id and the rig's. */
+async function createProtocol(
+  ctx: SeedContext,
+  labId: string,
+  p: { name: string; purpose: string; modality: 'optical' | 'electrical'; target: string; rigName: string },
+) {
+  const rigId = ctx.rigIds[p.rigName]!;
+  const [protocol] = await ctx.tx
+    .insert(schema.protocols)
+    .values({ labId, name: p.name, purpose: p.purpose, modality: p.modality, target: p.target, createdBy: ctx.userIds[AUTHOR]! })
+    .returning({ id: schema.protocols.id });
+  await ctx.tx.insert(schema.protocolRigs).values({ labId, protocolId: protocol!.id, rigId });
+  return { protocolId: protocol!.id, rigId };
+}
+
 async function thetaLight(ctx: SeedContext, labId: string) {
   const name = 'Theta-paced light, dorsal CA1';
   if (await existing(ctx, labId, name)) return;
   const rigName = 'Bench 2 — blue light';
-  const rigId = ctx.rigIds[rigName]!;
   const author = ctx.userIds[AUTHOR]!;
   const officer = ctx.userIds[OFFICER]!;
-  const [protocol] = await ctx.tx
-    .insert(schema.protocols)
-    .values({
-      labId,
-      name,
-      purpose: 'Drive CA1 pyramidal cells at theta-band rates with random timing during the linear-track task, cohort B.',
-      modality: 'optical',
-      target: 'dorsal CA1, left hemisphere',
-      createdBy: author,
-    })
-    .returning({ id: schema.protocols.id });
-  await ctx.tx.insert(schema.protocolRigs).values({ labId, protocolId: protocol!.id, rigId });
+  const { protocolId, rigId } = await createProtocol(ctx, labId, {
+    name,
+    purpose: 'Drive CA1 pyramidal cells at theta-band rates with random timing during the linear-track task, cohort B.',
+    modality: 'optical',
+    target: 'dorsal CA1, left hemisphere',
+    rigName,
+  });
 
   const v1Spec = specFor(optical, 10_000);
   const { checksum, pulseCount } = scanSchedule(v1Spec);
@@ -72,7 +81,7 @@ async function thetaLight(ctx: SeedContext, labId: string) {
     .insert(schema.protocolVersions)
     .values({
       labId,
-      protocolId: protocol!.id,
+      protocolId,
       number: 1,
       status: 'approved',
       spec: v1Spec,
@@ -111,7 +120,7 @@ async function thetaLight(ctx: SeedContext, labId: string) {
   });
   const [v2] = await ctx.tx
     .insert(schema.protocolVersions)
-    .values({ labId, protocolId: protocol!.id, number: 2, status: 'draft', spec: v2Spec, rigId, authorId: author, copiedFromId: v1!.id, revision: 1 })
+    .values({ labId, protocolId, number: 2, status: 'draft', spec: v2Spec, rigId, authorId: author, copiedFromId: v1!.id, revision: 1 })
     .returning({ id: schema.protocolVersions.id });
   await audit(ctx, labId, AUTHOR, 'version.copied', v2!.id, new Date(Date.now() - 2 * DAY), { details: { number: 2, from: 1 } });
 }
@@ -120,20 +129,14 @@ async function hvcMicrostim(ctx: SeedContext, labId: string) {
   const name = 'Random-timing microstimulation, HVC';
   if (await existing(ctx, labId, name)) return;
   const rigName = 'Bench 5 — microstim';
-  const rigId = ctx.rigIds[rigName]!;
   const author = ctx.userIds[AUTHOR]!;
-  const [protocol] = await ctx.tx
-    .insert(schema.protocols)
-    .values({
-      labId,
-      name,
-      purpose: 'Test whether randomly timed biphasic pulses in HVC perturb song timing more than periodic trains.',
-      modality: 'electrical',
-      target: 'HVC, right hemisphere',
-      createdBy: author,
-    })
-    .returning({ id: schema.protocols.id });
-  await ctx.tx.insert(schema.protocolRigs).values({ labId, protocolId: protocol!.id, rigId });
+  const { protocolId, rigId } = await createProtocol(ctx, labId, {
+    name,
+    purpose: 'Test whether randomly timed biphasic pulses in HVC perturb song timing more than periodic trains.',
+    modality: 'electrical',
+    target: 'HVC, right hemisphere',
+    rigName,
+  });
   const spec = specFor(electrical, 30_000);
   const { checksum, pulseCount } = scanSchedule(spec);
   const submittedAt = new Date(Date.now() - 1 * DAY);
@@ -141,7 +144,7 @@ async function hvcMicrostim(ctx: SeedContext, labId: string) {
     .insert(schema.protocolVersions)
     .values({
       labId,
-      protocolId: protocol!.id,
+      protocolId,
       number: 1,
       status: 'in_review',
       spec,
