@@ -49,6 +49,12 @@ export class ChecksumWriter {
     w.pos = p;
   }
 
+  /** Append lines already in the serialization above (the CSV writer makes them with its rows). */
+  addLines(lines: Uint8Array): void {
+    this.flush();
+    this.hash.update(lines);
+  }
+
   digest(): string {
     this.flush();
     return `sha256:${this.hash.digest('hex')}`;

@@ -78,6 +78,9 @@ const ZEROS = 0x30303030; // "0000"
  * dropped; when the clock is a power of ten those are the sample's own digits.
  * pulse_index is an ASCII counter, incremented in place. Clocks without a finite
  * decimal period (e.g. 30 kHz) and values past 2^31 take writeSeconds / putUint.
+ * With `lines`, each row's checksum line (`<prefix><onset_sample>\n`, see checksum.ts)
+ * is appended there from the same digits, so an export that checks its pulses does not
+ * format every sample twice.
  */
 export function writeRows(
   w: ByteWriter,
@@ -88,8 +91,13 @@ export function writeRows(
   firstIndex: number,
   clockHz: number,
   plan: DecimalPlan | null,
+  lines: ByteWriter | null = null,
 ): void {
   w.ensure(length * (prefix.length + suffix.length + 64) + 16);
+  lines?.ensure(length * (prefix.length + 24) + 16);
+  const lb = lines ? lines.buf : w.buf;
+  const lview = new DataView(lb.buffer, lb.byteOffset, lb.byteLength);
+  let lp = lines ? lines.pos : 0;
   const b = w.buf;
   const view = new DataView(b.buffer, b.byteOffset, b.byteLength);
   const pre = wordsOf(prefix);
@@ -171,15 +179,30 @@ export function writeRows(
       view.setUint32(p + 4, sv.getUint32(SB + 4, true), true);
       view.setUint32(p + 8, sv.getUint32(SB + 8, true), true);
       p += sl;
+      if (lines) {
+        for (let k = 0; k < pre.length; k++) lview.setUint32(lp + 4 * k, pre[k], true);
+        lp += preLen;
+        lview.setUint32(lp, sv.getUint32(SB, true), true);
+        lview.setUint32(lp + 4, sv.getUint32(SB + 4, true), true);
+        lview.setUint32(lp + 8, sv.getUint32(SB + 8, true), true);
+        lp += sl;
+        lb[lp++] = 10; // '\n'
+      }
     } else {
       w.pos = p;
       writeSeconds(w, s, clockHz, plan);
       p = w.pos;
       b[p++] = 44;
       p = putUint(b, p, s);
+      if (lines) {
+        for (let k = 0; k < pre.length; k++) lview.setUint32(lp + 4 * k, pre[k], true);
+        lp = putUint(lb, lp + preLen, s);
+        lb[lp++] = 10;
+      }
     }
     for (let k = 0; k < suf.length; k++) view.setUint32(p + 4 * k, suf[k], true);
     p += sufLen;
   }
   w.pos = p;
+  if (lines) lines.pos = lp;
 }

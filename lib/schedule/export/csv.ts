@@ -112,7 +112,7 @@ export function* csvBytes(spec: Spec, meta?: ScheduleMeta, options: ExportOption
 function* checkedRows(spec: Spec, channel: string | undefined, known: KnownSchedule): Generator<Uint8Array, void, undefined> {
   const check = new KnownScheduleCheck(known);
   let held: Uint8Array | null = null;
-  for (const chunk of csvRowBytes(spec, range(spec.trials), channel, (trial, samples, length) => check.add(trial, samples, length))) {
+  for (const chunk of csvRowBytes(spec, range(spec.trials), channel, check)) {
     if (held) yield held;
     held = chunk;
   }
@@ -125,23 +125,28 @@ const range = (n: number) => Array.from({ length: n }, (_, i) => i);
 /**
  * Just the rows, for the given trials in the given order, one chunk per 60 s block.
  * Workers can each write a share of the trials; the header needs the whole checksum.
+ * With `check`, the rows' checksum lines go to it as they are written.
  */
 export function* csvRowBytes(
   spec: Spec,
   trials: readonly number[],
   channel?: string,
-  onBlock?: (trial: number, samples: Float64Array, length: number) => void,
+  check?: KnownScheduleCheck,
 ): Generator<Uint8Array, void, undefined> {
   const c = compileSpec(spec);
   const clk = c.clockHz;
   const plan = decimalPlan(clk);
   const suffix = ascii(rowSuffix(spec, channel) + '\n');
   const w = new ByteWriter();
+  const lines = check ? new ByteWriter() : null;
   for (const trial of trials) {
     const prefix = ascii(`${trial},`);
     for (const { samples, length, firstIndex } of trialBlocks(c, trial)) {
-      onBlock?.(trial, samples, length);
-      writeRows(w, prefix, suffix, samples, length, firstIndex, clk, plan);
+      writeRows(w, prefix, suffix, samples, length, firstIndex, clk, plan, lines);
+      if (check && lines) {
+        check.addLines(lines.buf.subarray(0, lines.pos), length);
+        lines.pos = 0;
+      }
       yield w.take();
     }
   }

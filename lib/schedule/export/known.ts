@@ -43,6 +43,12 @@ export class KnownScheduleCheck {
     this.pulseCount += length;
   }
 
+  /** `count` pulses given as their checksum lines, `<trial>,<onsetSample>\n` each. */
+  addLines(lines: Uint8Array, count: number): void {
+    this.sum.addLines(lines);
+    this.pulseCount += count;
+  }
+
   /** Throws ScheduleMismatchError unless every pulse so far matches the known values. */
   verify(): void {
     const actual = { checksum: this.sum.digest(), pulseCount: this.pulseCount };

@@ -137,9 +137,12 @@ describe('CSV row bytes', () => {
       for (const first of [0, 8, 95, 999_990, 9_999_995, 99_999_990, 999_999_999_995]) {
         const samples = Float64Array.from(edges);
         const w = new ByteWriter(16);
-        writeRows(w, ascii('12,'), ascii(',5,mW,,,,A1\n'), samples, samples.length, first, clk, decimalPlan(clk));
+        const lines = new ByteWriter(16);
+        writeRows(w, ascii('12,'), ascii(',5,mW,,,,A1\n'), samples, samples.length, first, clk, decimalPlan(clk), lines);
         const want = [...samples].map((s, i) => `12,${first + i},${s / clk},${s},5,mW,,,,A1\n`).join('');
         expect(new TextDecoder().decode(w.take())).toBe(want);
+        // The checksum lines made from the same digits: the documented serialization.
+        expect(new TextDecoder().decode(lines.take())).toBe([...samples].map((s) => `12,${s}\n`).join(''));
       }
     }
   });
